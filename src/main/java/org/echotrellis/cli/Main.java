@@ -1,11 +1,92 @@
 package org.echotrellis.cli;
 
-/** Entry point of the echotrellis command-line tool. */
-public final class Main {
-    private Main() { }
+import java.io.PrintWriter;
+import java.util.Arrays;
+import org.echotrellis.InputException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** Entry point of the {@code echotrellis} command-line tool. */
+@Command(name = "echotrellis", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
+        description = "Extended-phase-graph tools for multi-echo spin-echo MR: simulate echo trains, "
+                + "trace coherence pathways, fit T2 and B1, compute T2 spectra and design refocusing schedules.",
+        subcommands = {SimulateCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
+        footer = {"", "Example:", "  echotrellis simulate sequences/knee-t2-16.yaml --b1 0.8 --plot knee.png",
+            "", "Research and protocol-planning tool, not a medical device."})
+public final class Main implements Runnable {
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    /** Prints usage when no subcommand is given. */
+    @Override
+    public void run() {
+        spec.commandLine().usage(spec.commandLine().getErr());
+    }
+
+    /** @return a configured command line (error handling, case rules) */
+    public static CommandLine newCommandLine() {
+        CommandLine cl = new CommandLine(new Main());
+        cl.setCaseInsensitiveEnumValuesAllowed(true);
+        cl.setParameterExceptionHandler(Main::onParameterError);
+        cl.setExecutionExceptionHandler(Main::onExecutionError);
+        return cl;
+    }
 
     /** @param args command-line arguments */
     public static void main(String[] args) {
-        System.exit(0);
+        System.setProperty("java.awt.headless", "true");
+        System.exit(newCommandLine().execute(args));
+    }
+
+    private static boolean debug(String[] args) {
+        return Arrays.asList(args).contains("--debug");
+    }
+
+    private static int onParameterError(CommandLine.ParameterException e, String[] args) {
+        PrintWriter err = e.getCommandLine().getErr();
+        err.println("echotrellis: " + e.getMessage());
+        err.println("Try '" + e.getCommandLine().getCommandSpec().qualifiedName() + " --help' for usage.");
+        if (debug(args)) {
+            e.printStackTrace(err);
+        }
+        err.flush();
+        return 2;
+    }
+
+    private static int onExecutionError(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {
+        PrintWriter err = cl.getErr();
+        boolean dbg = debug(parsed.originalArgs().toArray(new String[0]));
+        Throwable input = e;
+        while (input != null && !(input instanceof InputException)) {
+            input = input.getCause();
+        }
+        int code;
+        if (input != null) {
+            err.println("echotrellis: " + oneLine(input.getMessage()));
+            code = 2;
+        } else {
+            err.println("echotrellis: internal error: " + e.getClass().getSimpleName()
+                    + (e.getMessage() == null ? "" : ": " + oneLine(e.getMessage()))
+                    + (dbg ? "" : " (run with --debug for details)"));
+            code = 1;
+        }
+        if (dbg) {
+            e.printStackTrace(err);
+        }
+        err.flush();
+        return code;
+    }
+
+    private static String oneLine(String s) {
+        return s == null ? "" : s.split("\\R")[0];
+    }
+
+    /** Version from the jar manifest, or "development". */
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            String v = Main.class.getPackage().getImplementationVersion();
+            return new String[] {"echotrellis " + (v == null ? "0.1.0-SNAPSHOT" : v)};
+        }
     }
 }

@@ -1,0 +1,60 @@
+package org.echotrellis.cli;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.echotrellis.InputException;
+import org.echotrellis.io.AtomicFiles;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code demo}: runs the built-in scenarios end to end and writes their figures and a summary. */
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = "Run the built-in scenarios (invented protocols and tissues) and write plots and summary.md.",
+        footer = {"", "Example:", "  echotrellis demo --out plots"})
+public final class DemoCommand implements Callable<Integer> {
+    /** The demo's parts, in order. */
+    static final List<DemoSection> SECTIONS = List.of(
+            new FoundationDemo());
+
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "plots", description = "Output directory (default: ${DEFAULT-VALUE}).")
+    Path out;
+
+    @Option(names = "--quiet", description = "No progress messages.")
+    boolean quiet;
+
+    @Override
+    public Integer call() throws Exception {
+        if (Files.exists(out) && !Files.isDirectory(out)) {
+            throw new InputException("--out " + out + " exists and is not a directory");
+        }
+        Files.createDirectories(out);
+        StringBuilder summary = new StringBuilder("# echotrellis demo summary\n\n"
+                + "All protocols, tissues and phantoms here are invented scenarios for demonstration.\n\n");
+        DemoContext ctx = new DemoContext(out, true, summary, spec.commandLine().getErr(), quiet);
+        for (DemoSection s : SECTIONS) {
+            if (!quiet) {
+                ctx.err().println("demo: " + s.title() + " ...");
+                ctx.err().flush();
+            }
+            s.run(ctx);
+        }
+        AtomicFiles.writeString(out.resolve("summary.md"), summary.toString(), true);
+        spec.commandLine().getOut().print(summary);
+        spec.commandLine().getOut().flush();
+        if (!quiet) {
+            ctx.err().println("demo: wrote " + out.resolve("summary.md"));
+        }
+        return 0;
+    }
+}

@@ -1,0 +1,167 @@
+package org.echotrellis.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.echotrellis.io.AtomicFiles;
+import org.echotrellis.io.Json;
+import org.echotrellis.plot.ChartFiles;
+import org.echotrellis.plot.EchoPlot;
+import org.echotrellis.sequence.EchoTrain;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import org.echotrellis.sequence.Simulator;
+import org.echotrellis.sequence.Sweep;
+import org.echotrellis.sequence.Tissue;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code simulate}: echo amplitudes of a protocol, or a dictionary over a (T1, T2, B1) grid. */
+@Command(name = "simulate", mixinStandardHelpOptions = true,
+        description = "Predict the echo train of a protocol file with the extended phase graph.",
+        footer = {"", "Examples:",
+            "  echotrellis simulate sequences/knee-t2-16.yaml --b1 0.8 --plot knee.png",
+            "  echotrellis simulate sequences/brain-mwi-32.yaml --format json",
+            "  echotrellis simulate sequences/knee-t2-16.yaml --sweep t2_ms=10:100:10 --sweep b1=0.6:1:5 --out dict.csv"})
+public final class SimulateCommand implements Callable<Integer> {
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
+    Path file;
+
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms.")
+    Double t1Ms;
+
+    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms.")
+    Double t2Ms;
+
+    @Option(names = "--b1", paramLabel = "SCALE", description = "Override the B1 (flip-angle) scale, e.g. 0.8.")
+    Double b1;
+
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
+            description = "Output format: table, csv or json (default: ${DEFAULT-VALUE}).")
+    Format format;
+
+    @Option(names = "--plot", paramLabel = "PATH", description = "Write a plot of the echo train (.png or .svg).")
+    Path plot;
+
+    @Option(names = "--plot-b1", paramLabel = "SCALES", split = ",",
+            description = "Extra B1 scales drawn on the plot, e.g. 0.7,0.85.")
+    List<Double> plotB1 = new ArrayList<>();
+
+    @Option(names = "--sweep", paramLabel = "NAME=START:STOP:COUNT",
+            description = "Simulate a grid (repeatable; NAME one of t2_ms, t1_ms, b1); writes CSV, one row per point.")
+    List<String> sweeps = new ArrayList<>();
+
+    @Option(names = "--out", paramLabel = "PATH", description = "Write the sweep CSV to this file instead of stdout.")
+    Path out;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads for sweeps (default: all cores).")
+    Integer threads;
+
+    @Option(names = "--force", description = "Overwrite existing output files.")
+    boolean force;
+
+    @Option(names = "--quiet", description = "No progress bar.")
+    boolean quiet;
+
+    /** Output formats. */
+    enum Format { table, csv, json }
+
+    @Override
+    public Integer call() {
+        Protocol p = ProtocolReader.read(file);
+        Tissue t = p.tissue();
+        if (t1Ms != null) {
+            t = t.withT1Ms(CliChecks.positiveOrInf("--t1-ms", t1Ms));
+        }
+        if (t2Ms != null) {
+            t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
+        }
+        double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
+        p = p.withTissue(t).withB1Scale(scale);
+        PrintWriter o = spec.commandLine().getOut();
+        if (!sweeps.isEmpty()) {
+            return sweep(p, o);
+        }
+        EchoTrain train = Simulator.simulate(p);
+        switch (format) {
+            case json -> o.print(Json.write(json(p, train)));
+            case csv -> o.print(Tables.echoCsv(train));
+            default -> o.print(Tables.echoTable(p, train));
+        }
+        o.flush();
+        if (plot != null) {
+            EchoPlot ep = EchoPlot.create(p.name() + ": predicted echo train")
+                    .subtitle(String.format(Locale.ROOT, "T1 = %s ms, T2 = %s ms, B1 = %.2f; engine: %s",
+                            Tables.num(t.t1Ms()), Tables.num(t.t2Ms()), scale, p.cpmg().isPresent() ? "CPMG fast path" : "general"));
+            ep.train("EPG, B1 = " + String.format(Locale.ROOT, "%.2f", scale), train);
+            for (double extra : plotB1) {
+                ep.train("EPG, B1 = " + String.format(Locale.ROOT, "%.2f", extra),
+                        Simulator.simulate(p, t.t1Ms(), t.t2Ms(), CliChecks.b1("--plot-b1", extra)));
+            }
+            double[] times = train.timesMs();
+            double exc = p.cpmg().map(c -> Math.abs(Math.sin(Math.toRadians(c.excitationFlipDeg() * scale)))).orElse(1.0);
+            if (!Double.isInfinite(t.t2Ms()) && times.length > 0) {
+                ep.ideal(t.t2Ms(), exc, times[times.length - 1]);
+            }
+            ChartFiles.write(ep.build(), plot, 900, 560, force);
+        }
+        return 0;
+    }
+
+    private Map<String, Object> json(Protocol p, EchoTrain train) {
+        Map<String, Object> root = new LinkedHashMap<>();
+        root.put("protocol", p.name());
+        root.put("engine", p.cpmg().isPresent() ? "cpmg" : "general");
+        Map<String, Object> tissue = new LinkedHashMap<>();
+        tissue.put("t1_ms", p.tissue().t1Ms());
+        tissue.put("t2_ms", p.tissue().t2Ms());
+        root.put("tissue", tissue);
+        root.put("b1", p.b1Scale());
+        List<Map<String, Object>> echoes = new ArrayList<>();
+        for (int i = 0; i < train.size(); i++) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("index", i + 1);
+            e.put("label", train.labels().get(i));
+            e.put("time_ms", train.timesMs()[i]);
+            e.put("magnitude", train.magnitude(i));
+            e.put("phase_deg", train.phaseDeg(i));
+            e.put("real", train.re()[i]);
+            e.put("imag", train.im()[i]);
+            echoes.add(e);
+        }
+        root.put("echoes", echoes);
+        return root;
+    }
+
+    private int sweep(Protocol p, PrintWriter o) {
+        SweepGrid grid = SweepGrid.parse(sweeps, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale());
+        int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
+        double[][] mags;
+        try (ProgressBar bar = new ProgressBar(spec.commandLine().getErr(), "points", grid.size(), quiet)) {
+            mags = Sweep.magnitudes(p, grid.t1Ms(), grid.t2Ms(), grid.b1(), nThreads, bar::update);
+        }
+        String csv = Tables.sweepCsv(grid, mags);
+        if (out != null) {
+            AtomicFiles.writeString(out, csv, force);
+        } else {
+            o.print(csv);
+            o.flush();
+        }
+        return 0;
+    }
+}

@@ -1,0 +1,70 @@
+package org.echotrellis.cli;
+
+import java.util.Locale;
+import org.echotrellis.sequence.EchoTrain;
+import org.echotrellis.sequence.Protocol;
+
+/** Text renderings of echo trains: aligned tables and CSV. */
+final class Tables {
+    private Tables() { }
+
+    static String num(double v) {
+        if (Double.isInfinite(v)) {
+            return v > 0 ? "inf" : "-inf";
+        }
+        return v == Math.rint(v) && Math.abs(v) < 1e12 ? Long.toString((long) v) : String.format(Locale.ROOT, "%.6g", v);
+    }
+
+    static String echoTable(Protocol p, EchoTrain t) {
+        StringBuilder sb = new StringBuilder();
+        sb.append(String.format(Locale.ROOT, "# %s  (T1 %s ms, T2 %s ms, B1 %.3f, engine %s)%n", p.name(),
+                num(p.tissue().t1Ms()), num(p.tissue().t2Ms()), p.b1Scale(), p.cpmg().isPresent() ? "cpmg" : "general"));
+        int lw = 5;
+        for (String l : t.labels()) {
+            lw = Math.max(lw, l.length());
+        }
+        String head = "%5s  %-" + lw + "s  %10s  %10s  %10s  %11s  %11s%n";
+        sb.append(String.format(Locale.ROOT, head, "echo", "label", "time_ms", "magnitude", "phase_deg", "real", "imag"));
+        String row = "%5d  %-" + lw + "s  %10.3f  %10.6f  %10.3f  %11.7f  %11.7f%n";
+        for (int i = 0; i < t.size(); i++) {
+            sb.append(String.format(Locale.ROOT, row, i + 1, t.labels().get(i), t.timesMs()[i], t.magnitude(i),
+                    t.phaseDeg(i), t.re()[i], t.im()[i]));
+        }
+        return sb.toString();
+    }
+
+    static String echoCsv(EchoTrain t) {
+        StringBuilder sb = new StringBuilder("index,label,time_ms,magnitude,phase_deg,real,imag\n");
+        double[] times = t.timesMs();
+        double[] re = t.re();
+        double[] im = t.im();
+        for (int i = 0; i < t.size(); i++) {
+            sb.append(i + 1).append(',').append(csv(t.labels().get(i))).append(',').append(times[i]).append(',')
+                    .append(t.magnitude(i)).append(',').append(t.phaseDeg(i)).append(',').append(re[i]).append(',')
+                    .append(im[i]).append('\n');
+        }
+        return sb.toString();
+    }
+
+    static String sweepCsv(SweepGrid g, double[][] mags) {
+        int n = mags.length == 0 ? 0 : mags[0].length;
+        StringBuilder sb = new StringBuilder(32 + mags.length * (24 + 12 * n));
+        sb.append("t1_ms,t2_ms,b1");
+        for (int e = 1; e <= n; e++) {
+            sb.append(",echo_").append(e);
+        }
+        sb.append('\n');
+        for (int i = 0; i < mags.length; i++) {
+            sb.append(g.t1Ms()[i]).append(',').append(g.t2Ms()[i]).append(',').append(g.b1()[i]);
+            for (int e = 0; e < n; e++) {
+                sb.append(',').append(String.format(Locale.ROOT, "%.9g", mags[i][e]));
+            }
+            sb.append('\n');
+        }
+        return sb.toString();
+    }
+
+    private static String csv(String s) {
+        return s.contains(",") || s.contains("\"") ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
+    }
+}

@@ -1,0 +1,61 @@
+package org.echotrellis.sequence;
+
+import java.util.List;
+
+/**
+ * Simulated echoes of one train: complex F+<sub>0</sub> at every echo read-out (M0 = 1).
+ *
+ * @param labels echo labels
+ * @param timesMs echo times in ms from the first RF pulse
+ * @param re real parts
+ * @param im imaginary parts
+ */
+public record EchoTrain(List<String> labels, double[] timesMs, double[] re, double[] im) {
+
+    /** Copies. */
+    public EchoTrain {
+        labels = List.copyOf(labels);
+        timesMs = timesMs.clone();
+        re = re.clone();
+        im = im.clone();
+    }
+
+    /** @return number of echoes */
+    public int size() {
+        return re.length;
+    }
+
+    /** @return magnitude of echo i (0-based) */
+    public double magnitude(int i) {
+        return Math.hypot(re[i], im[i]);
+    }
+
+    /** @return phase of echo i in degrees, (-180, 180] */
+    public double phaseDeg(int i) {
+        return Math.toDegrees(Math.atan2(im[i], re[i]));
+    }
+
+    /** @return magnitudes of all echoes */
+    public double[] magnitudes() {
+        double[] m = new double[re.length];
+        for (int i = 0; i < m.length; i++) {
+            m[i] = magnitude(i);
+        }
+        return m;
+    }
+
+    @Override
+    public double[] timesMs() {
+        return timesMs.clone();
+    }
+
+    @Override
+    public double[] re() {
+        return re.clone();
+    }
+
+    @Override
+    public double[] im() {
+        return im.clone();
+    }
+}

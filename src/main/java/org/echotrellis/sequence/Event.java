@@ -1,0 +1,28 @@
+package org.echotrellis.sequence;
+
+/** One event of a sequence: an RF pulse, a free interval, or an echo read-out. */
+public sealed interface Event {
+
+    /**
+     * Instantaneous RF rotation.
+     *
+     * @param flipDeg nominal flip in degrees, [0, 360] (multiplied by the B1 scale when simulated)
+     * @param phaseDeg RF phase in degrees (axis of rotation in the transverse plane; 0 = x, 90 = y)
+     */
+    record Rf(double flipDeg, double phaseDeg) implements Event { }
+
+    /**
+     * Free precession: relaxation over the duration and a gradient adding {@code dephasing} orders.
+     *
+     * @param durationMs duration in ms (&gt; 0)
+     * @param dephasing integer number of dephasing orders added (0 none, negative allowed)
+     */
+    record Interval(double durationMs, int dephasing) implements Event { }
+
+    /**
+     * Records F+<sub>0</sub> at this instant.
+     *
+     * @param label a name for the echo (may be empty)
+     */
+    record Echo(String label) implements Event { }
+}

@@ -1,0 +1,171 @@
+package org.echotrellis.sequence;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import org.echotrellis.Checks;
+import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.epg.EpgProgram;
+
+/**
+ * A protocol: the event list every command works on, the tissue to simulate and a B1 scale. The
+ * shorthand echo-train form keeps its {@link CpmgTrain} as well.
+ *
+ * @param name protocol name
+ * @param description free text
+ * @param tissue default tissue
+ * @param b1Scale default flip-angle scale (1 = nominal)
+ * @param events the event list
+ * @param train the shorthand echo train, when the protocol was written in that form
+ * @param source where the protocol came from (file path or "built-in")
+ */
+public record Protocol(String name, String description, Tissue tissue, double b1Scale, List<Event> events,
+                       Optional<CpmgTrain> train, String source) {
+
+    /** Largest number of events in a protocol. */
+    public static final int MAX_EVENTS = 100_000;
+
+    /** Validates and copies. */
+    public Protocol {
+        name = name == null ? "" : name;
+        description = description == null ? "" : description;
+        source = source == null ? "" : source;
+        Checks.inRange("b1_scale", b1Scale, 0.0, 5.0, source);
+        Checks.require(b1Scale > 0, "b1_scale must be > 0, got " + b1Scale + " (" + source + ")");
+        events = List.copyOf(events);
+        train = train == null ? Optional.empty() : train;
+    }
+
+    /**
+     * Builds the protocol of a shorthand echo train: excitation, then per echo half an echo
+     * spacing with one dephasing order, the refocusing pulse, another half spacing, the echo.
+     *
+     * @param name protocol name
+     * @param description free text
+     * @param tissue tissue
+     * @param b1Scale flip scale
+     * @param train the echo train
+     * @param source origin
+     * @return the protocol
+     */
+    public static Protocol ofTrain(String name, String description, Tissue tissue, double b1Scale, CpmgTrain train,
+                                   String source) {
+        List<Event> ev = new ArrayList<>(1 + 4 * train.echoes());
+        ev.add(new Event.Rf(train.excitationFlipDeg(), train.excitationPhaseDeg()));
+        double half = 0.5 * train.echoSpacingMs();
+        for (int n = 0; n < train.echoes(); n++) {
+            ev.add(new Event.Interval(half, 1));
+            ev.add(new Event.Rf(train.refocusFlipDeg(n), train.refocusPhaseDeg(n)));
+            ev.add(new Event.Interval(half, 1));
+            ev.add(new Event.Echo("echo " + (n + 1)));
+        }
+        return new Protocol(name, description, tissue, b1Scale, ev, Optional.of(train), source);
+    }
+
+    /** @return number of echo read-outs */
+    public int echoCount() {
+        int n = 0;
+        for (Event e : events) {
+            if (e instanceof Event.Echo) {
+                n++;
+            }
+        }
+        return n;
+    }
+
+    /** @return echo times in ms from the first event */
+    public double[] echoTimesMs() {
+        double[] t = new double[echoCount()];
+        double now = 0;
+        int i = 0;
+        for (Event e : events) {
+            if (e instanceof Event.Interval iv) {
+                now += iv.durationMs();
+            } else if (e instanceof Event.Echo) {
+                t[i++] = now;
+            }
+        }
+        return t;
+    }
+
+    /** @return echo labels in order (a label of the form "echo N" when none was given) */
+    public List<String> echoLabels() {
+        List<String> out = new ArrayList<>();
+        for (Event e : events) {
+            if (e instanceof Event.Echo echo) {
+                out.add(echo.label().isEmpty() ? "echo " + (out.size() + 1) : echo.label());
+            }
+        }
+        return out;
+    }
+
+    /**
+     * The CPMG train this protocol is, when the fast path applies: the shorthand train, or an event
+     * list of the pattern rf, then per echo [interval(d, s), rf, interval(d, s), echo] with one duration
+     * d and one non-zero dephasing step s throughout; and in both cases refocusing phases that satisfy
+     * the CPMG relation ({@link CpmgTrain#isCpmgPhased()}).
+     *
+     * @return the train, or empty if the general engine is needed
+     */
+    public Optional<CpmgTrain> cpmg() {
+        Optional<CpmgTrain> t = train.isPresent() ? train : detect();
+        return t.filter(CpmgTrain::isCpmgPhased);
+    }
+
+    private Optional<CpmgTrain> detect() {
+        int m = events.size();
+        if (m < 5 || (m - 1) % 4 != 0 || !(events.get(0) instanceof Event.Rf exc)) {
+            return Optional.empty();
+        }
+        int n = (m - 1) / 4;
+        if (n > CpmgTrain.MAX_ECHOES) {
+            return Optional.empty();
+        }
+        double[] flips = new double[n];
+        double[] phases = new double[n];
+        double d = Double.NaN;
+        int s = 0;
+        for (int i = 0; i < n; i++) {
+            int o = 1 + 4 * i;
+            if (!(events.get(o) instanceof Event.Interval a) || !(events.get(o + 1) instanceof Event.Rf r)
+                    || !(events.get(o + 2) instanceof Event.Interval b) || !(events.get(o + 3) instanceof Event.Echo)) {
+                return Optional.empty();
+            }
+            if (i == 0) {
+                d = a.durationMs();
+                s = a.dephasing();
+            }
+            if (s == 0 || a.durationMs() != d || b.durationMs() != d || a.dephasing() != s || b.dephasing() != s) {
+                return Optional.empty();
+            }
+            flips[i] = r.flipDeg();
+            phases[i] = r.phaseDeg();
+        }
+        return Optional.of(new CpmgTrain(n, 2 * d, exc.flipDeg(), exc.phaseDeg(), flips, phases));
+    }
+
+    /** @return the event list compiled for the general engine */
+    public EpgProgram program() {
+        EpgProgram.Builder b = EpgProgram.builder();
+        for (Event e : events) {
+            if (e instanceof Event.Rf rf) {
+                b.rf(rf.flipDeg(), rf.phaseDeg());
+            } else if (e instanceof Event.Interval iv) {
+                b.interval(iv.durationMs(), iv.dephasing());
+            } else {
+                b.echo();
+            }
+        }
+        return b.build();
+    }
+
+    /** @return a copy simulating another tissue */
+    public Protocol withTissue(Tissue t) {
+        return new Protocol(name, description, t, b1Scale, events, train, source);
+    }
+
+    /** @return a copy with another B1 scale */
+    public Protocol withB1Scale(double b1) {
+        return new Protocol(name, description, tissue, b1, events, train, source);
+    }
+}

@@ -72,7 +72,7 @@ public final class EpgProgram {
         int reach = 0;
         int[] reachAfter = new int[n];
         for (int i = n - 1; i >= 0; i--) {
-            reachAfter[i] = i >= lastEcho ? 0 : reach;
+            reachAfter[i] = b.keepAll ? Integer.MAX_VALUE / 4 : i >= lastEcho ? 0 : reach;
             if (op[i] == INTERVAL && i < lastEcho) {
                 reach += Math.abs(dephasing[i]);
             }
@@ -137,6 +137,7 @@ public final class EpgProgram {
     /** Collects operations in order. Not thread-safe. */
     public static final class Builder {
         private final List<double[]> ops = new ArrayList<>();
+        private boolean keepAll;
 
         private Builder() { }
 
@@ -171,6 +172,17 @@ public final class EpgProgram {
         /** @return this builder, with an echo read-out (F+<sub>0</sub>) appended */
         public Builder echo() {
             ops.add(new double[] {ECHO, 0, 0});
+            return this;
+        }
+
+        /**
+         * Keeps every state up to date, also those that can no longer reach an echo (slower; for
+         * diagnostics such as the state norm or full phase-graph pictures).
+         *
+         * @return this builder
+         */
+        public Builder keepAllStates() {
+            keepAll = true;
             return this;
         }
 

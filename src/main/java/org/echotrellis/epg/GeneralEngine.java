@@ -123,6 +123,38 @@ public final class GeneralEngine {
         }
     }
 
+    /**
+     * Diagnostic: the squared norm of the final state of lane l after the last {@link #run}, the
+     * Fourier-domain mean of |M(&theta;)|<sup>2</sup> over the voxel:
+     * &Sigma;<sub>k</sub> |F<sub>k</sub>|<sup>2</sup> + |Z<sub>0</sub>|<sup>2</sup> + 2&Sigma;<sub>k&ge;1</sub> |Z<sub>k</sub>|<sup>2</sup>
+     * (Parseval). RF pulses and dephasing preserve it; it is meaningful only for programs built with
+     * {@link EpgProgram.Builder#keepAllStates()}.
+     *
+     * @param p the program last run
+     * @param lane the lane
+     * @return the squared norm
+     */
+    public double stateNormSquared(EpgProgram p, int lane) {
+        int nl = lanes;
+        int base = p.startBase;
+        for (int i = 0; i < p.op.length; i++) {
+            if (p.op[i] == EpgProgram.INTERVAL) {
+                base -= p.dephasing[i];
+            }
+        }
+        int win = p.maxOrder;
+        double sum = 0;
+        for (int k = -win; k <= win; k++) {
+            int i = (base + k) * nl + lane;
+            sum += fRe[i] * fRe[i] + fIm[i] * fIm[i];
+        }
+        for (int k = 0; k <= win; k++) {
+            double m = zRe[k * nl + lane] * zRe[k * nl + lane] + zIm[k * nl + lane] * zIm[k * nl + lane];
+            sum += k == 0 ? m : 2 * m;
+        }
+        return sum;
+    }
+
     private void relax(int u, int base, int win) {
         final int nl = lanes;
         final double[] r1 = e1;

@@ -68,7 +68,13 @@ final class Node {
                 return new Node(Collections.unmodifiableList(list), where);
             }
             case VALUE_NUMBER_INT, VALUE_NUMBER_FLOAT -> {
-                return new Node(p.getDoubleValue(), where);
+                String text = p.getText();
+                try {
+                    return new Node(p.getDoubleValue(), where);
+                } catch (IOException | NumberFormatException e) {
+                    // YAML's .inf / .nan: kept as text and interpreted by number()
+                    return new Node(text, where);
+                }
             }
             case VALUE_TRUE, VALUE_FALSE -> {
                 return new Node(t == JsonToken.VALUE_TRUE, where);
@@ -111,8 +117,11 @@ final class Node {
         }
         if (value instanceof String s) {
             String v = s.trim().toLowerCase(java.util.Locale.ROOT);
-            if (v.equals("inf") || v.equals(".inf") || v.equals("infinity") || v.equals("+inf")) {
+            if (v.equals("inf") || v.equals(".inf") || v.equals("+.inf") || v.equals("infinity") || v.equals("+inf")) {
                 return Double.POSITIVE_INFINITY;
+            }
+            if (v.equals(".nan") || v.equals("nan")) {
+                throw new InputException(where + ": " + key + " must be a number, got NaN");
             }
         }
         throw new InputException(where + ": " + key + " must be a number, got " + describe());

@@ -121,14 +121,25 @@ public final class CpmgEngine {
                 e1[l] = 0;
             }
         }
+        boolean sameB1 = true;
+        for (int l = 1; l < count; l++) {
+            sameB1 &= b1[l] == b1[0];
+        }
         double lastFlip = Double.NaN;
         for (int p = 1; p <= n; p++) {
             final double flipRad = Math.toRadians(train.refocusFlipDeg(p - 1)) * train.refocusSign(p - 1);
             if (flipRad != lastFlip) {
-                for (int l = 0; l < nl; l++) {
-                    double a = (l < count ? b1[l] : 1.0) * flipRad;
-                    cosA[l] = Math.cos(a);
-                    sinA[l] = Math.sin(a);
+                if (sameB1) {
+                    double c = Math.cos(b1[0] * flipRad);
+                    double s = Math.sin(b1[0] * flipRad);
+                    Arrays.fill(cosA, c);
+                    Arrays.fill(sinA, s);
+                } else {
+                    for (int l = 0; l < nl; l++) {
+                        double a = (l < count ? b1[l] : 1.0) * flipRad;
+                        cosA[l] = Math.cos(a);
+                        sinA[l] = Math.sin(a);
+                    }
                 }
                 lastFlip = flipRad;
             }

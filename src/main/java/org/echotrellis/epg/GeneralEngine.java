@@ -160,14 +160,14 @@ public final class GeneralEngine {
         final double[] r1 = e1;
         final double[] r2 = e2;
         final int eo = u * nl;
-        final int lo = (base - win) * nl;
-        final int hi = (base + win + 1) * nl;
-        for (int i = lo, l = 0; i < hi; i++) {
-            double f = r2[eo + l];
-            fRe[i] *= f;
-            fIm[i] *= f;
-            if (++l == nl) {
-                l = 0;
+        final double[] fr = fRe;
+        final double[] fi = fIm;
+        for (int k = base - win; k <= base + win; k++) {
+            final int ip = k * nl;
+            for (int l = 0; l < nl; l++) {
+                double f = r2[eo + l];
+                fr[ip + l] *= f;
+                fi[ip + l] *= f;
             }
         }
         for (int l = 0; l < nl; l++) {

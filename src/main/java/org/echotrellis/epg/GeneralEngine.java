@@ -106,7 +106,7 @@ public final class GeneralEngine {
         final int ne = p.echoCount;
         for (int i = 0; i < p.op.length; i++) {
             switch (p.op[i]) {
-                case EpgProgram.RF -> rf(p.table[i], p.phaseRad[i], base, p.window[i]);
+                case EpgProgram.RF -> rf(p.table[i], p.phaseTrig, 4 * i, base, p.window[i]);
                 case EpgProgram.INTERVAL -> {
                     base -= p.dephasing[i];
                     relax(p.table[i], base, p.window[i]);
@@ -192,12 +192,12 @@ public final class GeneralEngine {
      *   z' = -(i/2) e^{-i phi} sin(a) x + (i/2) e^{i phi} sin(a) y + cos(a) z
      * expanded into real arithmetic (about 60 flops per state and lane).
      */
-    private void rf(int u, double phi, int base, int win) {
+    private void rf(int u, double[] trig, int at, int base, int win) {
         final int nl = lanes;
-        final double cp = Math.cos(phi);
-        final double sp = Math.sin(phi);
-        final double c2p = cp * cp - sp * sp;
-        final double s2p = 2 * sp * cp;
+        final double cp = trig[at];
+        final double sp = trig[at + 1];
+        final double c2p = trig[at + 2];
+        final double s2p = trig[at + 3];
         final int to = u * nl;
         for (int l = 0; l < nl; l++) {
             double c = cosHalf[to + l];

@@ -18,6 +18,7 @@ import org.echotrellis.sequence.ProtocolReader;
 import org.echotrellis.sequence.Simulator;
 import org.echotrellis.sequence.Sweep;
 import org.echotrellis.sequence.Tissue;
+import org.echotrellis.sequence.TissuePresets;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -61,6 +62,10 @@ public final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--plot-b1", paramLabel = "SCALES", split = ",",
             description = "Extra B1 scales drawn on the plot, e.g. 0.7,0.85.")
     List<Double> plotB1 = new ArrayList<>();
+
+    @Option(names = "--plot-tissue", paramLabel = "PRESET", split = ",",
+            description = "Extra tissues (preset names) drawn on the plot at the same B1, e.g. grey_matter_3t.")
+    List<String> plotTissues = new ArrayList<>();
 
     @Option(names = "--sweep", paramLabel = "NAME=START:STOP:COUNT",
             description = "Simulate a grid (repeatable; NAME one of t2_ms, t1_ms, b1); writes CSV, one row per point.")
@@ -112,6 +117,11 @@ public final class SimulateCommand implements Callable<Integer> {
             for (double extra : plotB1) {
                 ep.train("EPG, B1 = " + String.format(Locale.ROOT, "%.2f", extra),
                         Simulator.simulate(p, t.t1Ms(), t.t2Ms(), CliChecks.b1("--plot-b1", extra)));
+            }
+            for (String name : plotTissues) {
+                Tissue extra = TissuePresets.get(name);
+                ep.train(name + String.format(Locale.ROOT, " (T1 %s, T2 %s ms)", Tables.num(extra.t1Ms()), Tables.num(extra.t2Ms())),
+                        Simulator.simulate(p, extra.t1Ms(), extra.t2Ms(), scale));
             }
             double[] times = train.timesMs();
             double exc = p.cpmg().map(c -> Math.abs(Math.sin(Math.toRadians(c.excitationFlipDeg() * scale)))).orElse(1.0);

@@ -38,13 +38,14 @@ class SimulateCommandTest {
         assertEquals(0, t.code(), t.err());
         assertTrue(t.out().contains("stimulated echo"), t.out());
         CliRun c = CliRun.of("simulate", "sequences/cp-phase-error-16.yaml", "--format", "csv",
-                "--plot", tmp.resolve("cp.svg").toString(), "--plot-b1", "0.9");
+                "--plot", tmp.resolve("cp.svg").toString(), "--plot-b1", "0.9", "--plot-tissue", "liver_3t");
         assertEquals(0, c.code(), c.err());
         String[] lines = c.out().split("\n");
         assertEquals("index,label,time_ms,magnitude,phase_deg,real,imag", lines[0]);
         assertEquals(17, lines.length);
         String svg = Files.readString(tmp.resolve("cp.svg"));
         assertTrue(svg.contains("<svg") && svg.length() > 5000);
+        assertTrue(svg.contains("liver_3t"), "tissue series in the legend");
     }
 
     @Test

@@ -22,8 +22,8 @@ public final class EpgProgram {
     final byte[] op;
     /** RF: index into flipsRad; INTERVAL: index into durationsMs. */
     final int[] table;
-    /** RF at op i: cos phi, sin phi, cos 2phi, sin 2phi at [4i..4i+3] (lane-independent, computed once). */
-    final double[] phaseTrig;
+    /** RF: phase in rad, reduced to [0, 2 pi) so that repeated phases are recognised. */
+    final double[] phaseRad;
     final int[] dephasing;
     /** Largest |k| whose state can still contribute to a later echo, after this operation. */
     final int[] window;
@@ -40,7 +40,7 @@ public final class EpgProgram {
         int n = b.ops.size();
         op = new byte[n];
         table = new int[n];
-        phaseTrig = new double[4 * n];
+        phaseRad = new double[n];
         dephasing = new int[n];
         List<Double> flips = new ArrayList<>();
         List<Double> durations = new ArrayList<>();
@@ -52,13 +52,8 @@ public final class EpgProgram {
             switch (op[i]) {
                 case RF -> {
                     table[i] = indexOf(flips, Math.toRadians(o[1]));
-                    double phi = Math.toRadians(o[2]);
-                    double cp = Math.cos(phi);
-                    double sp = Math.sin(phi);
-                    phaseTrig[4 * i] = cp;
-                    phaseTrig[4 * i + 1] = sp;
-                    phaseTrig[4 * i + 2] = cp * cp - sp * sp;
-                    phaseTrig[4 * i + 3] = 2 * sp * cp;
+                    double deg = o[2] - 360.0 * Math.floor(o[2] / 360.0);
+                    phaseRad[i] = Math.toRadians(deg);
                 }
                 case INTERVAL -> {
                     table[i] = indexOf(durations, o[1]);

@@ -1,0 +1,49 @@
+package org.echotrellis.io;
+
+import org.echotrellis.InputException;
+
+/**
+ * Estimates the noise level σ of the underlying Gaussian channels from magnitude voxels that hold
+ * no signal (the complement of the mask). For pure noise the magnitude is Rayleigh-distributed
+ * with E[M²] = 2σ², so σ = √(mean(M²)/2) (Gudbjartsson &amp; Patz, "The Rician distribution of
+ * noisy MRI data", Magn Reson Med 34:910, 1995). All echoes of every background voxel are used.
+ */
+public final class BackgroundNoise {
+    private BackgroundNoise() { }
+
+    /**
+     * @param job the volume job; its mask defines the background
+     * @return σ in signal units
+     * @throws InputException without a mask, or with fewer than 32 finite background values
+     */
+    public static double sigma(VolumeJob job) {
+        if (job.mask().isEmpty()) {
+            throw new InputException("--noise-sigma auto needs --mask (the noise is estimated outside the mask)");
+        }
+        NiftiHeader h = job.data().header();
+        int slice = h.size(1) * h.size(2);
+        int echoes = job.echoes();
+        double[] slab = new double[slice * echoes];
+        double sum = 0;
+        long n = 0;
+        for (int z = 0; z < h.size(3); z++) {
+            job.data().readSlab(z, 1, slab);
+            for (int v = 0; v < slice; v++) {
+                if (job.inside(z * slice + v)) {
+                    continue;
+                }
+                for (int e = 0; e < echoes; e++) {
+                    double m = slab[v * echoes + e];
+                    if (Double.isFinite(m)) {
+                        sum += m * m;
+                        n++;
+                    }
+                }
+            }
+        }
+        if (n < 32) {
+            throw new InputException("--noise-sigma auto: only " + n + " finite values outside the mask; give --noise-sigma S");
+        }
+        return Math.sqrt(sum / n / 2.0);
+    }
+}

@@ -1,0 +1,59 @@
+package org.echotrellis.io;
+
+/**
+ * A whole NIfTI-1 image held in memory as scaled double values (x fastest, then y, z, volume),
+ * immutable. Used for the 3-D mask and B1 map and for small volumes; large 4-D data are read
+ * slab by slab through {@link NiftiInput}.
+ */
+public final class NiftiImage {
+    private final NiftiHeader header;
+    private final double[] values;
+    private final String source;
+
+    NiftiImage(NiftiHeader header, double[] values, String source, boolean copy) {
+        if (values.length != header.totalVoxels()) {
+            throw new IllegalArgumentException("image needs " + header.totalVoxels() + " values, got " + values.length);
+        }
+        this.header = header;
+        this.values = copy ? values.clone() : values;
+        this.source = source;
+    }
+
+    /**
+     * @param header header giving the shape
+     * @param values values in file order (copied)
+     * @param source name used in messages
+     * @return the image
+     */
+    public static NiftiImage of(NiftiHeader header, double[] values, String source) {
+        return new NiftiImage(header, values, source, true);
+    }
+
+    /** @return the header */
+    public NiftiHeader header() {
+        return header;
+    }
+
+    /** @return the file name (or other label) used in messages */
+    public String source() {
+        return source;
+    }
+
+    /** @return number of values */
+    public int size() {
+        return values.length;
+    }
+
+    /**
+     * @param i linear index (x fastest)
+     * @return the scaled value
+     */
+    public double get(int i) {
+        return values[i];
+    }
+
+    /** @return a copy of all values */
+    public double[] values() {
+        return values.clone();
+    }
+}

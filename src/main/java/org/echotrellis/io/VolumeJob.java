@@ -1,0 +1,89 @@
+package org.echotrellis.io;
+
+import java.util.Optional;
+
+import org.echotrellis.Checks;
+import org.echotrellis.InputException;
+
+/**
+ * What a volume job reads: the 4-D echo series (x, y, z, echo), an optional 3-D mask (voxels with
+ * value 0 or NaN are skipped) and an optional 3-D B1 map (flip-angle scale per voxel). Shapes are
+ * checked on construction.
+ *
+ * @param data the open echo series
+ * @param mask optional mask on the same grid
+ * @param b1Map optional B1 map on the same grid
+ * @param threads worker threads (≥ 1)
+ * @param slabValues upper bound on doubles held per slab (≥ 1; at least one slice is read)
+ */
+public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<NiftiImage> b1Map, int threads,
+                        long slabValues) {
+
+    /** Default slab budget: 8 M doubles (64 MB). */
+    public static final long DEFAULT_SLAB_VALUES = 8L << 20;
+
+    /** Validates shapes. */
+    public VolumeJob {
+        Checks.inRange("--threads", threads, 1, 1024, null);
+        if (slabValues < 1) {
+            throw new IllegalArgumentException("slabValues must be >= 1");
+        }
+        NiftiHeader h = data.header();
+        if (h.rank() > 4) {
+            throw new InputException(data.source() + ": expected a 4-D series (x, y, z, echo), got " + h.rank() + " dimensions");
+        }
+        mask.ifPresent(m -> sameGrid(h, m, "--mask"));
+        b1Map.ifPresent(b -> sameGrid(h, b, "--b1-map"));
+    }
+
+    /**
+     * A job with default threads (all cores) and slab budget.
+     *
+     * @param data the echo series
+     * @param mask optional mask
+     * @param b1Map optional B1 map
+     * @return the job
+     */
+    public static VolumeJob of(NiftiInput data, Optional<NiftiImage> mask, Optional<NiftiImage> b1Map) {
+        return new VolumeJob(data, mask, b1Map, Runtime.getRuntime().availableProcessors(), DEFAULT_SLAB_VALUES);
+    }
+
+    /** @return number of echoes (volumes of the series) */
+    public int echoes() {
+        return data.header().volumes();
+    }
+
+    /** @return voxels per 3-D volume */
+    public int voxels() {
+        return (int) data.header().voxelsPerVolume();
+    }
+
+    /**
+     * @param v linear voxel index
+     * @return true if the voxel is inside the mask (or there is no mask)
+     */
+    public boolean inside(int v) {
+        if (mask.isEmpty()) {
+            return true;
+        }
+        double m = mask.get().get(v);
+        return m != 0 && !Double.isNaN(m);
+    }
+
+    private static void sameGrid(NiftiHeader h, NiftiImage img, String option) {
+        NiftiHeader m = img.header();
+        boolean ok = m.volumes() == 1 && m.size(1) == h.size(1) && m.size(2) == h.size(2) && m.size(3) == h.size(3);
+        if (!ok) {
+            throw new InputException(option + " " + img.source() + ": shape " + shape(m) + " does not match the data grid "
+                    + h.size(1) + "x" + h.size(2) + "x" + h.size(3) + " (a 3-D image on the same grid is required)");
+        }
+    }
+
+    private static String shape(NiftiHeader m) {
+        StringBuilder sb = new StringBuilder();
+        for (int a = 1; a <= m.rank(); a++) {
+            sb.append(a > 1 ? "x" : "").append(m.size(a));
+        }
+        return sb.toString();
+    }
+}

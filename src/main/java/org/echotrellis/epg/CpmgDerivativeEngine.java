@@ -163,7 +163,11 @@ public final class CpmgDerivativeEngine {
             }
             lastFlip = flipRad;
             final int top = Math.min(p - 1, n - p);
-            mix(top, pa, pb, nl, first ? 0.5 : 0.5 * e2, first ? 0.0 : kappa);
+            if (nl == 1) {
+                mixOne(top, pa, pb, first ? 0.5 : 0.5 * e2, first ? 0.0 : kappa);
+            } else {
+                mix(top, pa, pb, nl, first ? 0.5 : 0.5 * e2, first ? 0.0 : kappa);
+            }
             final int ib = pb * nl;
             double s = 0;
             double sT = 0;
@@ -182,6 +186,54 @@ public final class CpmgDerivativeEngine {
             System.arraycopy(fmT, ib, fpT, pa * nl, nl);
             System.arraycopy(fmB, ib, fpB, pa * nl, nl);
             pb++;
+        }
+    }
+
+    /** {@link #mix} for a single lane, coefficients in registers (the common no-profile case). */
+    private void mixOne(int top, int pa, int pb, double h, double kappa) {
+        final double[] a = fp;
+        final double[] b = fm;
+        final double[] z = zz;
+        final double[] aT = fpT;
+        final double[] bT = fmT;
+        final double[] zT = zzT;
+        final double[] aB = fpB;
+        final double[] bB = fmB;
+        final double[] zB = zzB;
+        final double g = gCoef[0];
+        final double u = uCoef[0];
+        final double v = vCoef[0];
+        final double w = wCoef[0];
+        final double ang = aCoef[0];
+        final double kv = kappa * v;
+        for (int j = 0; j <= top; j++) {
+            final int ia = pa + j;
+            final int ib = pb + j;
+            double x = a[ia];
+            double y = b[ib];
+            double q = z[j];
+            double d = x - y;
+            double t = h * (x + y);
+            double gd = g * d;
+            double r = gd + u * q;
+            double qn = w * q - v * d;
+            double dT = aT[ia] - bT[ib];
+            double qT = zT[j];
+            double tT = h * (aT[ia] + bT[ib]) + kappa * t;
+            double rT = g * dT + u * qT + kappa * gd;
+            double dB = aB[ia] - bB[ib];
+            double qB = zB[j];
+            double tB = h * (aB[ia] + bB[ib]);
+            double rB = g * dB + u * qB + ang * qn;
+            a[ia] = t + r;
+            b[ib] = t - r;
+            z[j] = qn;
+            aT[ia] = tT + rT;
+            bT[ib] = tT - rT;
+            zT[j] = w * qT - v * dT - kv * d;
+            aB[ia] = tB + rB;
+            bB[ib] = tB - rB;
+            zB[j] = w * qB - v * dB - ang * r;
         }
     }
 

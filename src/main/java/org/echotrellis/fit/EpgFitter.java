@@ -1,0 +1,304 @@
+package org.echotrellis.fit;
+
+import org.echotrellis.io.VoxelStatus;
+
+/**
+ * Stimulated-echo-corrected T2 fit of one decay, for one thread (Lebel &amp; Wilman,
+ * "Transverse relaxometry with stimulated echo compensation", Magn Reson Med 64:1005, 2010):
+ * the protocol's EPG train with free amplitude, T2 and B1 (or B1 fixed from a map), T1 fixed.
+ *
+ * <p>Steps: (1) start from the best atom of a coarse {@link StartDictionary}; (2) Levenberg–
+ * Marquardt over (ln T2, B1) with the amplitude projected out (variable projection, Golub &amp;
+ * Pereyra, SIAM J Numer Anal 10:413, 1973; for one linear parameter A = g·y/g·g and the exact
+ * Jacobian of A·g is A ∂g + g (∂g·y − 2A g·∂g)/g·g), with analytic EPG derivatives; (3) with a
+ * noise σ, refine (A, ln T2, B1) on the Rician mean E[M](A·g, σ) ({@link Rician}), so late echoes
+ * on the noise floor do not lengthen T2; (4) Cramér–Rao standard errors ({@link Covariance}) from
+ * the amplitude-projected Jacobian and the residual variance.
+ *
+ * <p>Allocation-free per decay after construction.
+ */
+final class EpgFitter {
+    /** Output slots. */
+    static final int T2 = 0;
+    static final int T2_SE = 1;
+    static final int B1 = 2;
+    static final int B1_SE = 3;
+    static final int AMPLITUDE = 4;
+    static final int RESIDUAL_RMS = 5;
+    static final int OUTPUTS = 6;
+
+    private static final int MAX_ITERATIONS = 60;
+    private static final double STEP_TOL = 1e-6;
+
+    private final FitSettings settings;
+    private final EpgSignal signal;
+    private final StartDictionary dictionary;
+    private final int n;
+    private final double[] g;
+    private final double[] gT;
+    private final double[] gB;
+    private final double[] start = new double[2];
+    private final SmallLeastSquares lmFree;
+    private final SmallLeastSquares lmFixed;
+    private final SmallLeastSquares lmRiceFree;
+    private final SmallLeastSquares lmRiceFixed;
+    private final Covariance cov2 = new Covariance(2);
+    private final Covariance cov1 = new Covariance(1);
+    private final Covariance cov3 = new Covariance(3);
+    private final double[] jp;
+    private final double[] se = new double[3];
+    private final double[] x2 = new double[2];
+    private final double[] x1 = new double[1];
+    private final double[] x3 = new double[3];
+    private final double[] lo2;
+    private final double[] hi2;
+    private final double[] lo1;
+    private final double[] hi1;
+    private final double[] lo3;
+    private final double[] hi3;
+    private final VarPro varPro = new VarPro();
+    private final RiceMean riceMean = new RiceMean();
+    private double[] y;
+    private int off;
+    private double fixedB1;
+    private double amplitude;
+    private int lastIterations;
+
+    EpgFitter(FitSettings settings, StartDictionary dictionary) {
+        this.settings = settings;
+        this.signal = new EpgSignal(settings);
+        this.dictionary = dictionary;
+        this.n = settings.train().echoes();
+        g = new double[n];
+        gT = new double[n];
+        gB = new double[n];
+        jp = new double[n * 3];
+        lmFree = new SmallLeastSquares(2, n);
+        lmFixed = new SmallLeastSquares(1, n);
+        lmRiceFree = new SmallLeastSquares(3, n);
+        lmRiceFixed = new SmallLeastSquares(2, n);
+        double lnLo = Math.log(settings.t2MinMs());
+        double lnHi = Math.log(settings.t2MaxMs());
+        double bHi = settings.effectiveB1Max();
+        lo2 = new double[] {lnLo, settings.b1Min()};
+        hi2 = new double[] {lnHi, bHi};
+        lo1 = new double[] {lnLo};
+        hi1 = new double[] {lnHi};
+        lo3 = new double[] {0, lnLo, settings.b1Min()};
+        hi3 = new double[] {Double.MAX_VALUE, lnHi, bHi};
+    }
+
+    /**
+     * Fits one decay.
+     *
+     * @param data decay at data[offset .. offset + echoes); not modified
+     * @param offset start
+     * @param b1Fixed B1 from a map, or NaN to fit B1
+     * @param out receives the {@link #OUTPUTS} values; modified
+     * @return the status
+     */
+    VoxelStatus fit(double[] data, int offset, double b1Fixed, double[] out) {
+        java.util.Arrays.fill(out, 0, OUTPUTS, Double.NaN);
+        double peak = 0;
+        for (int i = 0; i < n; i++) {
+            peak = Math.max(peak, data[offset + i]);
+        }
+        if (!(peak > 0)) {
+            return VoxelStatus.INVALID_INPUT;
+        }
+        y = data;
+        off = offset;
+        fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : Math.max(settings.b1Min(), Math.min(settings.effectiveB1Max(), b1Fixed));
+        dictionary.best(data, offset, fixedB1, start);
+        boolean free = Double.isNaN(fixedB1);
+        double cost;
+        SmallLeastSquares lm;
+        double lnT2;
+        double b1;
+        if (free) {
+            x2[0] = Math.log(start[0]);
+            x2[1] = start[1];
+            lm = lmFree;
+            cost = lm.solve(varPro, x2, lo2, hi2, MAX_ITERATIONS, STEP_TOL);
+            lnT2 = x2[0];
+            b1 = x2[1];
+        } else {
+            x1[0] = Math.log(start[0]);
+            lm = lmFixed;
+            cost = lm.solve(varPro, x1, lo1, hi1, MAX_ITERATIONS, STEP_TOL);
+            lnT2 = x1[0];
+            b1 = fixedB1;
+        }
+        if (!(cost < Double.POSITIVE_INFINITY)) {
+            return VoxelStatus.INVALID_INPUT;
+        }
+        double amp = amplitude;
+        lastIterations = lm.iterations();
+        int p = free ? 2 : 1;
+        boolean converged = lm.converged();
+        double[] jac = lm.jacobian();
+        double[] r = lm.residuals();
+        double fNorm = projectAmplitude(jac, r, p);
+        double s2 = cost / Math.max(1, n - p - 1);
+        (free ? cov2 : cov1).standardErrors(jp, n, s2, fNorm, se);
+        double seLnT2 = se[0];
+        double seB1 = free ? se[1] : Double.NaN;
+        if (!Double.isNaN(settings.noiseSigma())) {
+            SmallLeastSquares lr = free ? lmRiceFree : lmRiceFixed;
+            double[] x = free ? x3 : x2;
+            x[0] = amp;
+            x[1] = lnT2;
+            if (free) {
+                x[2] = b1;
+            }
+            cost = lr.solve(riceMean, x, lo3, hi3, MAX_ITERATIONS, STEP_TOL);
+            converged = lr.converged();
+            amp = x[0];
+            lnT2 = x[1];
+            b1 = free ? x[2] : fixedB1;
+            s2 = cost / Math.max(1, n - p - 1);
+            (free ? cov3 : cov2).standardErrors(lr.jacobian(), n, s2, modelNorm(lr.residuals()), se);
+            seLnT2 = se[1];
+            seB1 = free ? se[2] : Double.NaN;
+        }
+        double t2 = Math.exp(lnT2);
+        out[T2] = t2;
+        out[T2_SE] = t2 * seLnT2;
+        out[B1] = b1;
+        out[B1_SE] = seB1;
+        out[AMPLITUDE] = amp;
+        out[RESIDUAL_RMS] = Math.sqrt(cost / n);
+        double[] rFinal = Double.isNaN(settings.noiseSigma()) ? r : (free ? lmRiceFree : lmRiceFixed).residuals();
+        double peakModel = 0;
+        for (int i = 0; i < n; i++) {
+            peakModel = Math.max(peakModel, y[off + i] - rFinal[i]);
+        }
+        return status(converged, lnT2, b1, free, peakModel, Math.sqrt(s2));
+    }
+
+    /** @return LM iterations of the last fit (the least-squares stage) */
+    int lastIterations() {
+        return lastIterations;
+    }
+
+    private VoxelStatus status(boolean converged, double lnT2, double b1, boolean free, double peakModel,
+            double noiseRms) {
+        double noise = Double.isNaN(settings.noiseSigma()) ? noiseRms : settings.noiseSigma();
+        if (!converged) {
+            return VoxelStatus.NOT_CONVERGED;
+        }
+        boolean onBound = lnT2 <= lo1[0] + 1e-9 || lnT2 >= hi1[0] - 1e-9
+                || free && (b1 <= lo2[1] + 1e-9 || (!settings.foldActive() && b1 >= hi2[1] - 1e-9));
+        if (onBound) {
+            return VoxelStatus.HIT_BOUND;
+        }
+        if (peakModel < 3 * noise) {
+            return VoxelStatus.LOW_SIGNAL;
+        }
+        return VoxelStatus.OK;
+    }
+
+    /** Fills jp with the amplitude-projected Jacobian (I − P_f)J; returns |f|. */
+    private double projectAmplitude(double[] jac, double[] r, int p) {
+        double ff = 0;
+        for (int i = 0; i < n; i++) {
+            double f = y[off + i] - r[i];
+            ff += f * f;
+        }
+        for (int k = 0; k < p; k++) {
+            double fj = 0;
+            for (int i = 0; i < n; i++) {
+                fj += (y[off + i] - r[i]) * jac[i * p + k];
+            }
+            double c = ff > 0 ? fj / ff : 0;
+            for (int i = 0; i < n; i++) {
+                jp[i * p + k] = jac[i * p + k] - c * (y[off + i] - r[i]);
+            }
+        }
+        return Math.sqrt(ff);
+    }
+
+    private double modelNorm(double[] r) {
+        double ff = 0;
+        for (int i = 0; i < n; i++) {
+            double f = y[off + i] - r[i];
+            ff += f * f;
+        }
+        return Math.sqrt(ff);
+    }
+
+    /** Least squares with the amplitude projected out; x = (ln T2[, B1]). */
+    private final class VarPro implements SmallLeastSquares.Problem {
+        @Override
+        public double evaluate(double[] x, double[] r, double[] jac) {
+            boolean free = x.length == 2;
+            double t2 = Math.exp(x[0]);
+            double b1 = free ? x[1] : fixedB1;
+            signal.evaluate(t2, b1, g, gT, gB);
+            double gg = 0;
+            double gy = 0;
+            double tY = 0;
+            double gTd = 0;
+            double bY = 0;
+            double gBd = 0;
+            for (int i = 0; i < n; i++) {
+                double yi = y[off + i];
+                gg += g[i] * g[i];
+                gy += g[i] * yi;
+                tY += gT[i] * yi;
+                gTd += g[i] * gT[i];
+                bY += gB[i] * yi;
+                gBd += g[i] * gB[i];
+            }
+            if (!(gg > 0)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double a = gy / gg;
+            amplitude = a;
+            double daT = (tY - 2 * a * gTd) / gg;
+            double daB = (bY - 2 * a * gBd) / gg;
+            double cost = 0;
+            int p = x.length;
+            for (int i = 0; i < n; i++) {
+                double ri = y[off + i] - a * g[i];
+                r[i] = ri;
+                cost += ri * ri;
+                jac[i * p] = a * gT[i] + g[i] * daT;
+                if (free) {
+                    jac[i * p + 1] = a * gB[i] + g[i] * daB;
+                }
+            }
+            return cost;
+        }
+    }
+
+    /** Rician mean model; x = (A, ln T2[, B1]). */
+    private final class RiceMean implements SmallLeastSquares.Problem {
+        @Override
+        public double evaluate(double[] x, double[] r, double[] jac) {
+            boolean free = x.length == 3;
+            double a = x[0];
+            double t2 = Math.exp(x[1]);
+            double b1 = free ? x[2] : fixedB1;
+            signal.evaluate(t2, b1, g, gT, gB);
+            double sigma = settings.noiseSigma();
+            double cost = 0;
+            int p = x.length;
+            for (int i = 0; i < n; i++) {
+                double nu = a * g[i];
+                double sign = nu < 0 ? -1 : 1;
+                double m = Rician.mean(Math.abs(nu), sigma);
+                double d = Rician.slope(Math.abs(nu), sigma) * sign;
+                double ri = y[off + i] - m;
+                r[i] = ri;
+                cost += ri * ri;
+                jac[i * p] = d * g[i];
+                jac[i * p + 1] = d * a * gT[i];
+                if (free) {
+                    jac[i * p + 2] = d * a * gB[i];
+                }
+            }
+            return cost;
+        }
+    }
+}

@@ -1,0 +1,167 @@
+package org.echotrellis.fit;
+
+/**
+ * A coarse dictionary of unit-norm EPG trains over a (T2, B1) grid, shared read-only by all
+ * threads, giving robust starting values: the atom with the largest (ĝ·y)² is the least-squares
+ * best on the grid for a free amplitude. T2 is log-spaced (ratio about 1.3 per step) over the
+ * bounds, B1 evenly spaced over [b1Min, effective b1Max] (about 0.1 per step). Each atom also
+ * stores its derivatives (with respect to ln T2 and B1, same scaling), so the best atom is
+ * refined by one Gauss–Newton step of the amplitude-projected problem without another EPG run.
+ */
+final class StartDictionary {
+    private final int nT2;
+    private final int nB1;
+    private final int echoes;
+    private final double[] t2;
+    private final double[] b1;
+    private final double[] atoms;  // [(ib*nT2 + it)*echoes + n]
+    private final double[] atomsT; // derivative with respect to ln T2, same layout and scale
+    private final double[] atomsB; // derivative with respect to B1
+    private final double lnT2Lo;
+    private final double lnT2Hi;
+    private final double b1Lo;
+    private final double b1Hi;
+
+    StartDictionary(FitSettings s) {
+        double lo = s.t2MinMs();
+        double hi = s.t2MaxMs();
+        nT2 = Math.max(4, (int) Math.ceil(Math.log(hi / lo) / Math.log(1.3)) + 1);
+        b1Lo = s.b1Min();
+        b1Hi = s.effectiveB1Max();
+        lnT2Lo = Math.log(lo);
+        lnT2Hi = Math.log(hi);
+        nB1 = Math.max(2, (int) Math.ceil((b1Hi - b1Lo) / 0.1) + 1);
+        echoes = s.train().echoes();
+        t2 = new double[nT2];
+        b1 = new double[nB1];
+        for (int i = 0; i < nT2; i++) {
+            t2[i] = lo * Math.pow(hi / lo, i / (double) (nT2 - 1));
+        }
+        for (int j = 0; j < nB1; j++) {
+            b1[j] = b1Lo + (b1Hi - b1Lo) * j / (nB1 - 1);
+        }
+        atoms = new double[nT2 * nB1 * echoes];
+        atomsT = new double[atoms.length];
+        atomsB = new double[atoms.length];
+        EpgSignal sig = new EpgSignal(s);
+        double[] g = new double[echoes];
+        double[] d1 = new double[echoes];
+        double[] d2 = new double[echoes];
+        for (int j = 0; j < nB1; j++) {
+            for (int i = 0; i < nT2; i++) {
+                sig.evaluate(t2[i], b1[j], g, d1, d2);
+                double norm = 0;
+                for (double v : g) {
+                    norm += v * v;
+                }
+                double inv = norm > 0 ? 1 / Math.sqrt(norm) : 0;
+                int o = (j * nT2 + i) * echoes;
+                for (int n = 0; n < echoes; n++) {
+                    atoms[o + n] = g[n] * inv;
+                    atomsT[o + n] = d1[n] * inv;
+                    atomsB[o + n] = d2[n] * inv;
+                }
+            }
+        }
+    }
+
+    /** @return number of atoms */
+    int size() {
+        return nT2 * nB1;
+    }
+
+    /**
+     * Best atom for a decay.
+     *
+     * @param y data at y[off .. off+echoes); not modified
+     * @param off offset
+     * @param fixedB1 B1 to use (the nearest grid row is searched), or NaN to search all rows
+     * @param start receives {T2, B1}: the best atom refined by one Gauss–Newton step (kept
+     *        within the bounds and within one grid step of the atom); modified
+     */
+    void best(double[] y, int off, double fixedB1, double[] start) {
+        int j0 = 0;
+        int j1 = nB1;
+        if (!Double.isNaN(fixedB1)) {
+            int j = 0;
+            for (int k = 1; k < nB1; k++) {
+                if (Math.abs(b1[k] - fixedB1) < Math.abs(b1[j] - fixedB1)) {
+                    j = k;
+                }
+            }
+            j0 = j;
+            j1 = j + 1;
+        }
+        double bestScore = -1;
+        int bi = 0;
+        int bj = j0;
+        for (int j = j0; j < j1; j++) {
+            for (int i = 0; i < nT2; i++) {
+                int o = (j * nT2 + i) * echoes;
+                double dot = 0;
+                for (int n = 0; n < echoes; n++) {
+                    dot += atoms[o + n] * y[off + n];
+                }
+                if (dot > 0 && dot * dot > bestScore) {
+                    bestScore = dot * dot;
+                    bi = i;
+                    bj = j;
+                }
+            }
+        }
+        start[0] = t2[bi];
+        start[1] = Double.isNaN(fixedB1) ? b1[bj] : fixedB1;
+        if (bestScore > 0) {
+            refine(y, off, (bj * nT2 + bi) * echoes, !Double.isNaN(fixedB1), start);
+        }
+    }
+
+    /** One Gauss–Newton step on the projected problem from atom at offset o. */
+    private void refine(double[] y, int off, int o, boolean b1Fixed, double[] start) {
+        double a = 0;
+        double gt = 0;
+        double gb = 0;
+        for (int n = 0; n < echoes; n++) {
+            a += atoms[o + n] * y[off + n];
+            gt += atoms[o + n] * atomsT[o + n];
+            gb += atoms[o + n] * atomsB[o + n];
+        }
+        double htt = 0;
+        double hbb = 0;
+        double htb = 0;
+        double rt = 0;
+        double rb = 0;
+        for (int n = 0; n < echoes; n++) {
+            double gn = atoms[o + n];
+            double r = y[off + n] - a * gn;
+            double jt = a * (atomsT[o + n] - gn * gt);
+            double jb = a * (atomsB[o + n] - gn * gb);
+            htt += jt * jt;
+            hbb += jb * jb;
+            htb += jt * jb;
+            rt += jt * r;
+            rb += jb * r;
+        }
+        double dLn;
+        double dB = 0;
+        if (b1Fixed) {
+            dLn = htt > 0 ? rt / htt : 0;
+        } else {
+            double det = htt * hbb - htb * htb;
+            if (!(det > 1e-12 * htt * hbb)) {
+                dLn = htt > 0 ? rt / htt : 0;
+            } else {
+                dLn = (hbb * rt - htb * rb) / det;
+                dB = (htt * rb - htb * rt) / det;
+            }
+        }
+        double stepLn = Math.log(1.3);
+        double stepB = (b1Hi - b1Lo) / (nB1 - 1);
+        dLn = Math.max(-stepLn, Math.min(stepLn, dLn));
+        dB = Math.max(-stepB, Math.min(stepB, dB));
+        start[0] = Math.exp(Math.max(lnT2Lo, Math.min(lnT2Hi, Math.log(start[0]) + dLn)));
+        if (!b1Fixed) {
+            start[1] = Math.max(b1Lo, Math.min(b1Hi, start[1] + dB));
+        }
+    }
+}

@@ -46,7 +46,7 @@ class CpmgDerivativeEngineTest {
         // Central differences with step h have error O(h^2); h = 1e-4 relative gives ~1e-8 agreement.
         for (long seed : new long[] {1, 2, 3}) {
             Random r = new Random(seed);
-            int lanes = 1 + r.nextInt(5);
+            int lanes = seed == 1 ? 1 : 1 + r.nextInt(5);
             CpmgDerivativeEngine eng = new CpmgDerivativeEngine(lanes);
             int n = 32;
             double[] flips = new double[n];

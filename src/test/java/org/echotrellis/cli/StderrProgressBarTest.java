@@ -10,20 +10,24 @@ import org.junit.jupiter.api.Test;
 
 class StderrProgressBarTest {
     @Test
-    void lineShowsFractionRateAndTimeLeft() {
-        String s = StderrProgressBar.line(250, 1000, 2.0, "voxels");
-        assertEquals("[########......................]  25% 250/1000 voxels, 125/s 6 s left", s);
-        assertTrue(StderrProgressBar.line(1000, 1000, 2.0, "voxels").contains("100%"));
-    }
-
-    @Test
-    void drawsOnFinishAndEndsTheLine() {
+    void drawsTheFinalStateAndEndsTheLine() {
         StringWriter w = new StringWriter();
-        StderrProgressBar bar = new StderrProgressBar(new PrintWriter(w));
+        StderrProgressBar bar = new StderrProgressBar(new PrintWriter(w), false);
         bar.start("voxels", 10);
         bar.advance(10);
         bar.finish();
         assertTrue(w.toString().startsWith("\r["), w.toString());
+        assertTrue(w.toString().contains("10/10 voxels"), w.toString());
         assertTrue(w.toString().endsWith(System.lineSeparator()));
+    }
+
+    @Test
+    void quietPrintsNothing() {
+        StringWriter w = new StringWriter();
+        StderrProgressBar bar = new StderrProgressBar(new PrintWriter(w), true);
+        bar.start("voxels", 10);
+        bar.advance(10);
+        bar.finish();
+        assertEquals("", w.toString());
     }
 }

@@ -31,6 +31,16 @@ public final class ClassTracker {
     private int fw;
     private int zw;
     private int top;
+    private IntervalListener listener;
+
+    /** Called at every interval, before its relaxation and shift (used to draw phase graphs). */
+    interface IntervalListener {
+        /**
+         * @param t the tracker, whose summed states can be read
+         * @param window largest order currently held
+         */
+        void interval(ClassTracker t, int window);
+    }
 
     /** Creates a tracker with empty workspaces. */
     public ClassTracker() { }
@@ -81,6 +91,9 @@ public final class ClassTracker {
                         promote(window);
                         promoted = true;
                     }
+                    if (listener != null) {
+                        listener.interval(this, window);
+                    }
                     double tau = s.value[i];
                     relax(Math.exp(-tau / t1Ms), Math.exp(-tau / t2Ms), window);
                     int next = s.window[i];
@@ -99,6 +112,39 @@ public final class ClassTracker {
                 }
             }
         }
+    }
+
+    /** @param l listener for the next runs, or null */
+    void listen(IntervalListener l) {
+        listener = l;
+    }
+
+    /**
+     * @param k signed order
+     * @return |F<sub>k</sub>| summed over all classes (F+<sub>k</sub> for k &ge; 0, F&minus;<sub>|k|</sub> for k &lt; 0)
+     */
+    double transverseMagnitude(int k) {
+        double r = 0;
+        double i = 0;
+        for (int m = 0; m <= top; m++) {
+            r += fRe[m * fw + zw - 1 + k];
+            i += fIm[m * fw + zw - 1 + k];
+        }
+        return Math.hypot(r, i);
+    }
+
+    /**
+     * @param k order, &ge; 0
+     * @return |Z<sub>k</sub>| summed over all classes
+     */
+    double longitudinalMagnitude(int k) {
+        double r = 0;
+        double i = 0;
+        for (int m = 0; m <= top; m++) {
+            r += zRe[m * zw + k];
+            i += zIm[m * zw + k];
+        }
+        return Math.hypot(r, i);
     }
 
     private void prepare(Schedule s) {

@@ -1,0 +1,163 @@
+package org.echotrellis.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.echotrellis.Checks;
+import org.echotrellis.InputException;
+import org.echotrellis.io.Json;
+import org.echotrellis.pathway.ClassDecomposition;
+import org.echotrellis.pathway.PathwayAnalysis;
+import org.echotrellis.pathway.PathwaySearch;
+import org.echotrellis.pathway.PhaseGraph;
+import org.echotrellis.pathway.TopPathways;
+import org.echotrellis.plot.ChartFiles;
+import org.echotrellis.plot.ClassContributionChart;
+import org.echotrellis.plot.PhaseGraphDiagram;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import org.echotrellis.sequence.Tissue;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code pathways}: which coherence pathways form each echo, the stimulated share, the phase graph. */
+@Command(name = "pathways", mixinStandardHelpOptions = true,
+        description = {"Split every echo of a protocol into classes by the number of periods its pathways spent "
+                + "as dephased longitudinal magnetization (m = 0: spin echoes; m >= 1: stimulated echoes), "
+                + "list the largest individual pathways of one echo, and draw the phase graph."},
+        footer = {"", "Examples:",
+            "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --plot classes.png --diagram graph.svg",
+            "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --echo 4 --top 8",
+            "  echotrellis pathways sequences/three-pulse-stimulated.yaml --format json",
+            "", "Pathway notation: origin (Z0 equilibrium, Rp regrown in period p), then the state after each "
+                + "pulse: Fk transverse with signed order k, Zk longitudinal (sign = direction it re-emerges), "
+                + "S*n = n repeats. Example: Z0 F0 Z-1 F-1 is the stimulated echo of CPMG echo 2."})
+public final class PathwaysCommand implements Callable<Integer> {
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
+    Path file;
+
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms.")
+    Double t1Ms;
+
+    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms.")
+    Double t2Ms;
+
+    @Option(names = "--b1", paramLabel = "SCALE", description = "Override the B1 (flip-angle) scale, e.g. 0.8.")
+    Double b1;
+
+    @Option(names = "--echo", paramLabel = "N", description = "List the largest pathways of echo N (1-based).")
+    Integer echo;
+
+    @Option(names = "--top", paramLabel = "K", description = "How many pathways to list for --echo (default 10).")
+    Integer top;
+
+    @Option(names = "--min-amplitude", paramLabel = "A", defaultValue = "1e-9",
+            description = "Pathway search: do not follow pathways smaller than A (fraction of M0; default: ${DEFAULT-VALUE}).")
+    double minAmplitude;
+
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
+            description = "Output format: table, csv or json (default: ${DEFAULT-VALUE}).")
+    Format format;
+
+    @Option(names = "--plot", paramLabel = "PATH", description = "Write the stacked class-contribution chart (.png or .svg).")
+    Path plot;
+
+    @Option(names = "--diagram", paramLabel = "PATH", description = "Write the phase-graph diagram (.png or .svg).")
+    Path diagram;
+
+    @Option(names = "--diagram-threshold", paramLabel = "A", defaultValue = "0.001",
+            description = "Diagram: leave out states smaller than A (fraction of M0; default: ${DEFAULT-VALUE}).")
+    double diagramThreshold;
+
+    @Option(names = "--diagram-max-order", paramLabel = "K",
+            description = "Diagram: leave out dephasing orders above K (default: all that can still refocus).")
+    Integer diagramMaxOrder;
+
+    @Option(names = "--diagram-until-ms", paramLabel = "MS",
+            description = "Diagram: draw only the first MS milliseconds of the sequence.")
+    Double diagramUntilMs;
+
+    @Option(names = "--force", description = "Overwrite existing output files.")
+    boolean force;
+
+    /** Output formats. */
+    enum Format { table, csv, json }
+
+    @Override
+    public Integer call() {
+        Protocol p = ProtocolReader.read(file);
+        Tissue t = p.tissue();
+        if (t1Ms != null) {
+            t = t.withT1Ms(CliChecks.positiveOrInf("--t1-ms", t1Ms));
+        }
+        if (t2Ms != null) {
+            t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
+        }
+        double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
+        p = p.withTissue(t).withB1Scale(scale);
+        checkOptions(p);
+        ClassDecomposition d = PathwayAnalysis.classes(p);
+        TopPathways tp = null;
+        if (echo != null) {
+            PathwaySearch.Limits lim = new PathwaySearch.Limits(top == null ? 10 : top, minAmplitude, 4_000_000);
+            tp = PathwayAnalysis.topPathways(p, echo, lim);
+        }
+        PrintWriter o = spec.commandLine().getOut();
+        switch (format) {
+            case json -> o.print(Json.write(PathwayReport.json(p, d, tp)));
+            case csv -> o.print(PathwayReport.csv(d, tp));
+            default -> o.print(PathwayReport.table(p, d, tp));
+        }
+        o.flush();
+        String conditions = String.format(Locale.ROOT, "T1 = %s ms, T2 = %s ms, B1 = %.2f", Tables.num(t.t1Ms()),
+                Tables.num(t.t2Ms()), scale);
+        if (plot != null) {
+            ChartFiles.write(ClassContributionChart.create(p.name() + ": echo classes by longitudinal periods",
+                    conditions + "; bars projected on each echo's phase add up to |echo|", d), plot, 900, 560, force);
+        }
+        if (diagram != null) {
+            int maxOrder = diagramMaxOrder == null ? 100_000 : diagramMaxOrder;
+            double until = diagramUntilMs == null ? Double.POSITIVE_INFINITY : diagramUntilMs;
+            PhaseGraph g = PathwayAnalysis.phaseGraph(p, diagramThreshold, maxOrder, until);
+            ChartFiles.write(PhaseGraphDiagram.create(p.name() + ": phase graph", conditions
+                    + "; states below " + diagramThreshold + " of M0 not drawn", g),
+                    diagram, 1000, 600, force);
+        }
+        return 0;
+    }
+
+    private void checkOptions(Protocol p) {
+        int n = p.echoCount();
+        if (n == 0) {
+            throw new InputException(file + ": the protocol has no echo events; nothing to analyse");
+        }
+        if (top != null && echo == null) {
+            throw new InputException("--top needs --echo N (an echo within [1, " + n + "])");
+        }
+        if (echo != null) {
+            Checks.inRange("--echo", echo, 1, n, file.toString() + " has " + n + " echoes");
+        }
+        if (top != null) {
+            Checks.inRange("--top", top, 1, 10_000, null);
+        }
+        Checks.inRange("--min-amplitude", minAmplitude, 0, 1, null);
+        Checks.inRange("--diagram-threshold", diagramThreshold, 0, 1, null);
+        if (diagramMaxOrder != null) {
+            Checks.inRange("--diagram-max-order", diagramMaxOrder, 0, 100_000, null);
+        }
+        if (diagramUntilMs != null) {
+            Checks.positive("--diagram-until-ms", diagramUntilMs, null);
+        }
+    }
+}

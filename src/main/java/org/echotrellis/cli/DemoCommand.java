@@ -19,7 +19,8 @@ import picocli.CommandLine.Spec;
 public final class DemoCommand implements Callable<Integer> {
     /** The demo's parts, in order. */
     static final List<DemoSection> SECTIONS = List.of(
-            new FoundationDemo());
+            new FoundationDemo(),
+            new PathwayDemo());
 
     @Mixin
     CommonOptions common;

@@ -5,35 +5,20 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.echotrellis.io.Json;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import picocli.CommandLine;
 
 /** The {@code pathways} command: output contract, pictures and bad input. */
 class PathwaysCommandTest {
     private static final String KNEE = "sequences/knee-t2-16.yaml";
     private static final String THREE = "sequences/three-pulse-stimulated.yaml";
 
-    private record Run(int code, String out, String err) { }
-
-    private static Run run(String... args) {
-        CommandLine cl = Main.newCommandLine();
-        StringWriter out = new StringWriter();
-        StringWriter err = new StringWriter();
-        cl.setOut(new PrintWriter(out));
-        cl.setErr(new PrintWriter(err));
-        int code = cl.execute(args);
-        return new Run(code, out.toString(), err.toString());
-    }
-
     @Test
     void jsonContractClassesAddUpToEachEcho() throws Exception {
-        Run r = run("pathways", KNEE, "--b1", "0.8", "--format", "json", "--echo", "4", "--top", "5");
+        CliRun r = CliRun.of("pathways", KNEE, "--b1", "0.8", "--format", "json", "--echo", "4", "--top", "5");
         assertEquals(0, r.code(), r.err());
         JsonNode root = Json.MAPPER.readTree(r.out());
         JsonNode echoes = root.get("echoes");
@@ -67,7 +52,7 @@ class PathwaysCommandTest {
 
     @Test
     void threePulseStimulatedEchoIsAllStimulated() throws Exception {
-        Run r = run("pathways", THREE, "--format", "json");
+        CliRun r = CliRun.of("pathways", THREE, "--format", "json");
         assertEquals(0, r.code(), r.err());
         JsonNode echoes = Json.MAPPER.readTree(r.out()).get("echoes");
         // Hahn 1950 / Woessner 1961: the stimulated echo (label "stimulated echo") is entirely class 1
@@ -78,7 +63,7 @@ class PathwaysCommandTest {
 
     @Test
     void idealTrainHasNoStimulatedShareInTheTable() {
-        Run r = run("pathways", KNEE, "--echo", "3", "--top", "2");
+        CliRun r = CliRun.of("pathways", KNEE, "--echo", "3", "--top", "2");
         assertEquals(0, r.code(), r.err());
         assertTrue(r.out().contains("stim_share"));
         assertTrue(r.out().contains("Z0 F0 F-1*3"), r.out());
@@ -87,7 +72,7 @@ class PathwaysCommandTest {
 
     @Test
     void csvHasOneRowPerEchoAndAPathwayBlock() {
-        Run r = run("pathways", KNEE, "--b1", "0.9", "--format", "csv", "--echo", "4", "--top", "3");
+        CliRun r = CliRun.of("pathways", KNEE, "--b1", "0.9", "--format", "csv", "--echo", "4", "--top", "3");
         assertEquals(0, r.code(), r.err());
         String[] blocks = r.out().split("\n\n");
         assertEquals(2, blocks.length);
@@ -100,7 +85,7 @@ class PathwaysCommandTest {
     void writesBothPicturesAndRefusesToOverwrite(@TempDir Path dir) throws Exception {
         Path png = dir.resolve("classes.png");
         Path svg = dir.resolve("graph.svg");
-        Run r = run("pathways", KNEE, "--b1", "0.8", "--plot", png.toString(), "--diagram", svg.toString(),
+        CliRun r = CliRun.of("pathways", KNEE, "--b1", "0.8", "--plot", png.toString(), "--diagram", svg.toString(),
                 "--diagram-threshold", "0.01", "--diagram-max-order", "6");
         assertEquals(0, r.code(), r.err());
         byte[] head = Files.readAllBytes(png);
@@ -109,31 +94,31 @@ class PathwaysCommandTest {
         assertTrue(Files.size(png) > 10_000);
         String text = Files.readString(svg);
         assertTrue(text.contains("<svg"));
-        Run again = run("pathways", KNEE, "--plot", png.toString());
+        CliRun again = CliRun.of("pathways", KNEE, "--plot", png.toString());
         assertEquals(2, again.code());
         assertTrue(again.err().contains("--force"), again.err());
     }
 
     @Test
     void badInputGivesOneLineAndExitCodeTwo() {
-        Run outOfRange = run("pathways", KNEE, "--echo", "17");
+        CliRun outOfRange = CliRun.of("pathways", KNEE, "--echo", "17");
         assertEquals(2, outOfRange.code());
         assertTrue(outOfRange.err().contains("[1, 16]"), outOfRange.err());
         assertEquals(1, outOfRange.err().trim().split("\n").length);
-        Run noEcho = run("pathways", KNEE, "--top", "3");
+        CliRun noEcho = CliRun.of("pathways", KNEE, "--top", "3");
         assertEquals(2, noEcho.code());
         assertTrue(noEcho.err().contains("--echo"));
-        Run badThreshold = run("pathways", KNEE, "--diagram-threshold", "2");
+        CliRun badThreshold = CliRun.of("pathways", KNEE, "--diagram-threshold", "2");
         assertEquals(2, badThreshold.code());
-        Run missing = run("pathways", "no-such-file.yaml");
+        CliRun missing = CliRun.of("pathways", "no-such-file.yaml");
         assertEquals(2, missing.code());
-        Run badB1 = run("pathways", KNEE, "--b1", "-1");
+        CliRun badB1 = CliRun.of("pathways", KNEE, "--b1", "-1");
         assertEquals(2, badB1.code());
     }
 
     @Test
     void helpShowsAnExample() {
-        Run r = run("pathways", "--help");
+        CliRun r = CliRun.of("pathways", "--help");
         assertEquals(0, r.code());
         assertTrue(r.out().contains("echotrellis pathways sequences/knee-t2-16.yaml"));
     }

@@ -24,14 +24,18 @@ public final class PseudoSteadyState {
         if (m >= 1) {
             return Double.POSITIVE_INFINITY;
         }
-        double a = 1;
-        double b = Math.sqrt(1 - m);
+        return Math.PI / (2 * agm(1, Math.sqrt(1 - m)));
+    }
+
+    private static double agm(double a0, double b0) {
+        double a = a0;
+        double b = b0;
         for (int i = 0; i < 60 && Math.abs(a - b) > 1e-16 * a; i++) {
             double an = 0.5 * (a + b);
             b = Math.sqrt(a * b);
             a = an;
         }
-        return Math.PI / (2 * a);
+        return a;
     }
 
     /**
@@ -42,9 +46,9 @@ public final class PseudoSteadyState {
         if (flipRad <= 0) {
             return 0;
         }
-        double half = 0.5 * flipRad;
-        double c = Math.cos(half);
-        return 2 / Math.PI * Math.sin(half) * ellipticK(c * c);
+        // with √(1 − m) = sin(α/2): (2/π)·s·K = s / AGM(1, s), exact down to tiny flips
+        double s = Math.sin(0.5 * Math.min(flipRad, Math.PI));
+        return s / agm(1, s);
     }
 
     /**

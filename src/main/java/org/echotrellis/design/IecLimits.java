@@ -55,7 +55,7 @@ public final class IecLimits {
     /** @return markdown/plain table of the modes with its sources and the caution */
     public static String table() {
         StringBuilder sb = new StringBuilder();
-        sb.append(String.format(java.util.Locale.ROOT, "%-24s %-12s %-10s %-26s %s%n", "IEC 60601-2-33 mode",
+        sb.append(String.format(java.util.Locale.ROOT, "%-24s %-12s %-10s %-37s %s%n", "IEC 60601-2-33 mode",
                 "whole body", "head", "partial body (r = exposed/total mass)", "note"));
         for (Mode m : modes()) {
             sb.append(String.format(java.util.Locale.ROOT, "%-24s %-12s %-10s %-37s %s%n", m.mode(),

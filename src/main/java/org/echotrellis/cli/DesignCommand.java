@@ -1,0 +1,248 @@
+package org.echotrellis.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.echotrellis.Checks;
+import org.echotrellis.InputException;
+import org.echotrellis.design.DesignJob;
+import org.echotrellis.design.DesignProblem;
+import org.echotrellis.design.DesignReport;
+import org.echotrellis.design.EchoTarget;
+import org.echotrellis.design.ExposureLimits;
+import org.echotrellis.design.Objective;
+import org.echotrellis.design.PulseShape;
+import org.echotrellis.design.RfExposure;
+import org.echotrellis.design.SarReference;
+import org.echotrellis.design.Startup;
+import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.io.Json;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import org.echotrellis.sequence.Tissue;
+import org.echotrellis.sequence.TissuePresets;
+import picocli.CommandLine.ArgGroup;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code design}: refocusing schedules for a prescribed echo evolution or a budgeted objective. */
+@Command(name = "design", mixinStandardHelpOptions = true,
+        description = {"Design a refocusing-flip schedule for a CPMG echo train: echo by echo for a prescribed "
+                + "echo evolution (--target), or the best smooth schedule for an objective within a relative-SAR "
+                + "budget and a B1+rms limit (--objective). Writes the schedule as a protocol file that simulate, "
+                + "pathways and fit read.",
+            "RF figures are estimates for planning only: the scanner's own SAR monitor, local regulations and "
+                + "the responsible MR physicist decide."},
+        footer = {"", "Targets: constant:LEVEL, ramp:FIRST:LAST, decay:PSEUDO_T2_MS[:START], list:FILE",
+            "Objectives: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B]",
+            "", "Examples:",
+            "  echotrellis design --protocol sequences/fse-variable-1p5t.yaml --target constant:0.4 --out fse-design",
+            "  echotrellis design --protocol sequences/brain-mwi-32.yaml --objective signal:8 --sar-budget 0.5 \\",
+            "      --tr-ms 3000 --slices 20 --b1rms-limit-ut 2.5 --format json"})
+public final class DesignCommand implements Callable<Integer> {
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--protocol", required = true, paramLabel = "FILE",
+            description = "Protocol file with the echo train and design tissue (.yaml, .yml or .json).")
+    Path protocol;
+
+    @ArgGroup(exclusive = true, multiplicity = "1")
+    Goal goal;
+
+    /** Exactly one of --target and --objective. */
+    static final class Goal {
+        @Option(names = "--target", paramLabel = "SPEC", description = "Prescribed echo amplitudes (M0 = 1).")
+        String target;
+
+        @Option(names = "--objective", paramLabel = "SPEC", description = "Quantity to maximise within the limits.")
+        String objective;
+    }
+
+    @Option(names = "--startup", paramLabel = "SPEC", defaultValue = "ramp:3",
+            description = "Start-up for --target: none, alsop or ramp:N (default: ${DEFAULT-VALUE}).")
+    String startup;
+
+    @Option(names = "--min-flip-deg", paramLabel = "DEG", defaultValue = "10",
+            description = "Lowest refocusing flip (default: ${DEFAULT-VALUE}).")
+    double minFlipDeg;
+
+    @Option(names = "--max-flip-deg", paramLabel = "DEG", defaultValue = "180",
+            description = "Highest refocusing flip (default: ${DEFAULT-VALUE}).")
+    double maxFlipDeg;
+
+    @Option(names = "--sar-budget", paramLabel = "FRACTION", defaultValue = "1",
+            description = "Relative SAR budget, fraction of the all-180° train in (0, 1] (default: ${DEFAULT-VALUE}).")
+    double sarBudget;
+
+    @Option(names = "--b1rms-limit-ut", paramLabel = "UT", description = "B1+rms limit in µT (needs --tr-ms).")
+    Double b1rmsLimitUt;
+
+    @Option(names = "--tr-ms", paramLabel = "MS", description = "Repetition time in ms, for B1+rms.")
+    Double trMs;
+
+    @Option(names = "--slices", paramLabel = "N", defaultValue = "1",
+            description = "Echo trains played per TR, e.g. slices (default: ${DEFAULT-VALUE}).")
+    int slices;
+
+    @Option(names = "--pulse", paramLabel = "SHAPE", defaultValue = "sinc:4",
+            description = "Refocusing pulse: rect, sinc:TBW, gauss:TBW or file:PATH (default: ${DEFAULT-VALUE}).")
+    String pulse;
+
+    @Option(names = "--pulse-ms", paramLabel = "MS", defaultValue = "2",
+            description = "Refocusing pulse duration in ms (default: ${DEFAULT-VALUE}).")
+    double pulseMs;
+
+    @Option(names = "--excitation-pulse", paramLabel = "SHAPE", description = "Excitation pulse shape (default: --pulse).")
+    String excitationPulse;
+
+    @Option(names = "--excitation-pulse-ms", paramLabel = "MS", description = "Excitation pulse duration (default: --pulse-ms).")
+    Double excitationPulseMs;
+
+    @Option(names = "--knots", paramLabel = "K", defaultValue = "6",
+            description = "Spline knots of the schedule for --objective (default: ${DEFAULT-VALUE}).")
+    int knots;
+
+    @Option(names = "--max-evaluations", paramLabel = "N", defaultValue = "3000",
+            description = "Objective evaluations per optimiser start (default: ${DEFAULT-VALUE}).")
+    int maxEvaluations;
+
+    @Option(names = "--design-tissue", paramLabel = "PRESET", description = "Design for this tissue preset instead of the file's.")
+    String designTissue;
+
+    @Option(names = "--compare-tissue", paramLabel = "PRESET",
+            description = "Tissue preset to predict as well (repeatable; default: two or three brain and muscle tissues).")
+    List<String> compareTissues = new ArrayList<>();
+
+    @Option(names = "--reference-sar-w-per-kg", paramLabel = "W_PER_KG",
+            description = "Scanner-reported SAR of a reference protocol, to scale an absolute estimate (needs --tr-ms).")
+    Double referenceSar;
+
+    @Option(names = "--reference-protocol", paramLabel = "FILE",
+            description = "Reference protocol for the SAR scaling (default: --protocol as written).")
+    Path referenceProtocol;
+
+    @Option(names = "--reference-tr-ms", paramLabel = "MS", description = "TR of the reference (default: --tr-ms).")
+    Double referenceTrMs;
+
+    @Option(names = "--reference-slices", paramLabel = "N", description = "Trains per TR of the reference (default: --slices).")
+    Integer referenceSlices;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Write schedule.yaml, design.json and plots here.")
+    Path out;
+
+    @Option(names = "--name", paramLabel = "NAME", description = "Name of the written protocol (default: PROTOCOL-designed).")
+    String name;
+
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
+            description = "Standard output: table or json (default: ${DEFAULT-VALUE}).")
+    Format format;
+
+    @Option(names = "--force", description = "Overwrite existing output files.")
+    boolean force;
+
+    @Option(names = "--quiet", description = "No progress messages.")
+    boolean quiet;
+
+    /** Output formats. */
+    enum Format { table, json }
+
+    @Override
+    public Integer call() {
+        Protocol p = ProtocolReader.read(protocol);
+        CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException(protocol
+                + ": design needs a CPMG echo train (train: shorthand or CPMG-phased event list)"));
+        Tissue tissue = designTissue == null ? p.tissue() : TissuePresets.get(designTissue);
+        String tissueName = tissue.name() == null || tissue.name().isEmpty() ? "design tissue" : tissue.name();
+        DesignProblem problem = new DesignProblem(tissueName, train.echoes(), train.echoSpacingMs(),
+                train.excitationFlipDeg(), tissue.t1Ms(), tissue.t2Ms(), p.b1Scale(), minFlipDeg, maxFlipDeg);
+        ExposureLimits limits = new ExposureLimits(sarBudget,
+                b1rmsLimitUt == null ? Double.POSITIVE_INFINITY : Checks.positive("--b1rms-limit-ut", b1rmsLimitUt, null));
+        RfExposure rf = rf();
+        SarReference reference = reference(p, train, rf);
+        List<Tissue> compare = compareTissues(tissueName);
+        if (out != null) {
+            DesignOutputs.checkWritable(out, force);
+        }
+        PrintWriter err = spec.commandLine().getErr();
+        DesignReport report;
+        if (goal.target != null) {
+            report = DesignJob.prescribed(problem, EchoTarget.parse(goal.target), Startup.parse(startup), rf, limits,
+                    reference, compare);
+        } else {
+            Objective objective = Objective.parse(goal.objective, problem, DesignCommand::presetTimes);
+            if (!quiet) {
+                err.println("design: optimising " + knots + " spline knots for " + objective.spec() + " ...");
+                err.flush();
+            }
+            report = DesignJob.optimised(problem, objective, rf, limits, reference, knots, maxEvaluations, compare);
+        }
+        PrintWriter o = spec.commandLine().getOut();
+        o.print(format == Format.json ? Json.write(report.toJson()) : DesignOutputs.table(report));
+        o.flush();
+        if (out != null) {
+            String protocolName = name != null ? name : p.name() + "-designed";
+            DesignOutputs.write(report, out, protocolName, force);
+            if (!quiet) {
+                err.println("design: wrote " + out.resolve(DesignOutputs.SCHEDULE_FILE) + ", design.json and plots");
+                err.flush();
+            }
+        }
+        return 0;
+    }
+
+    private RfExposure rf() {
+        PulseShape refocus = PulseShape.parse(pulse, "--pulse");
+        PulseShape exc = excitationPulse == null ? refocus : PulseShape.parse(excitationPulse, "--excitation-pulse");
+        double excMs = excitationPulseMs == null ? pulseMs : excitationPulseMs;
+        return new RfExposure(refocus, pulseMs, exc, excMs, trMs == null ? Double.NaN : trMs, slices);
+    }
+
+    private SarReference reference(Protocol p, CpmgTrain train, RfExposure rf) {
+        if (referenceSar == null) {
+            Checks.require(referenceProtocol == null && referenceTrMs == null && referenceSlices == null,
+                    "--reference-protocol, --reference-tr-ms and --reference-slices need --reference-sar-w-per-kg");
+            return null;
+        }
+        Checks.require(trMs != null, "--reference-sar-w-per-kg needs --tr-ms");
+        CpmgTrain ref = train;
+        if (referenceProtocol != null) {
+            ref = ProtocolReader.read(referenceProtocol).cpmg().orElseThrow(() -> new InputException(referenceProtocol
+                    + ": the reference protocol must be a CPMG echo train"));
+        }
+        RfExposure refRf = rf.withTiming(referenceTrMs == null ? trMs : referenceTrMs,
+                referenceSlices == null ? slices : referenceSlices);
+        return new SarReference(referenceSar, refRf.powerUt2(ref.excitationFlipDeg(), ref.refocusFlipsDeg()));
+    }
+
+    private List<Tissue> compareTissues(String designName) {
+        List<Tissue> list = new ArrayList<>();
+        if (!compareTissues.isEmpty()) {
+            for (String n : compareTissues) {
+                list.add(TissuePresets.get(n));
+            }
+            return list;
+        }
+        String field = designName.endsWith("_1p5t") ? "_1p5t" : "_3t";
+        for (String base : new String[] {"white_matter", "grey_matter", "skeletal_muscle", "blood"}) {
+            String n = base + field;
+            if (!n.equals(designName) && TissuePresets.names().contains(n) && list.size() < 3) {
+                list.add(TissuePresets.get(n));
+            }
+        }
+        return list;
+    }
+
+    private static double[] presetTimes(String name) {
+        Tissue t = TissuePresets.get(name);
+        return new double[] {t.t1Ms(), t.t2Ms()};
+    }
+}

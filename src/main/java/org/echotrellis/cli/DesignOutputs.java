@@ -187,7 +187,8 @@ final class DesignOutputs {
     }
 
     private static String g(double v) {
-        return String.format(Locale.ROOT, "%.4g", v).replaceAll("\\.?0+$", "");
+        String s = String.format(Locale.ROOT, "%.4g", v);
+        return s.contains(".") && !s.contains("e") ? s.replaceAll("0+$", "").replaceAll("\\.$", "") : s;
     }
 
     private static String clip(String s) {

@@ -20,7 +20,8 @@ public final class DemoCommand implements Callable<Integer> {
     /** The demo's parts, in order. */
     static final List<DemoSection> SECTIONS = List.of(
             new FoundationDemo(),
-            new PathwayDemo());
+            new PathwayDemo(),
+            new DesignDemo());
 
     @Mixin
     CommonOptions common;

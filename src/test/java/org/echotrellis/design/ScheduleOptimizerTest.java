@@ -24,6 +24,5 @@ class ScheduleOptimizerTest {
         // a variable schedule spends RF where it pays (TRAPS, Hennig et al. MRM 49:527, 2003): expect a clear gain
         assertTrue(r.objective() > 1.05 * r.constantObjective(), r.objective() + " vs " + r.constantObjective());
         assertEquals(r.objective(), new ObjectiveEvaluator().value(o, FSE80, flips), 1e-12);
-        System.err.println(java.util.Arrays.toString(flips) + " " + r);
     }
 }

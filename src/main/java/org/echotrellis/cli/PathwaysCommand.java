@@ -88,11 +88,20 @@ public final class PathwaysCommand implements Callable<Integer> {
             description = "Diagram: draw only the first MS milliseconds of the sequence.")
     Double diagramUntilMs;
 
+    @Option(names = "--diagram-scale", paramLabel = "SCALE", defaultValue = "linear",
+            description = "Diagram line strength: linear (proportional to the state's magnitude, relative to the "
+                    + "largest state at that time) or log (from the threshold to M0; shows weak states; "
+                    + "default: ${DEFAULT-VALUE}).")
+    LineScale diagramScale;
+
     @Option(names = "--force", description = "Overwrite existing output files.")
     boolean force;
 
     /** Output formats. */
     enum Format { table, csv, json }
+
+    /** Diagram line scales. */
+    enum LineScale { linear, log }
 
     @Override
     public Integer call() {
@@ -110,7 +119,7 @@ public final class PathwaysCommand implements Callable<Integer> {
         ClassDecomposition d = PathwayAnalysis.classes(p);
         TopPathways tp = null;
         if (echo != null) {
-            PathwaySearch.Limits lim = new PathwaySearch.Limits(top == null ? 10 : top, minAmplitude, 4_000_000);
+            PathwaySearch.Limits lim = new PathwaySearch.Limits(top == null ? 10 : top, minAmplitude, 2_000_000);
             tp = PathwayAnalysis.topPathways(p, echo, lim);
         }
         PrintWriter o = spec.commandLine().getOut();
@@ -131,7 +140,8 @@ public final class PathwaysCommand implements Callable<Integer> {
             double until = diagramUntilMs == null ? Double.POSITIVE_INFINITY : diagramUntilMs;
             PhaseGraph g = PathwayAnalysis.phaseGraph(p, diagramThreshold, maxOrder, until);
             ChartFiles.write(PhaseGraphDiagram.create(p.name() + ": phase graph", conditions
-                    + "; states below " + diagramThreshold + " of M0 not drawn", g),
+                    + "; states below " + diagramThreshold + " of M0 not drawn", g,
+                    diagramScale == LineScale.log ? PhaseGraphDiagram.Scale.LOG : PhaseGraphDiagram.Scale.LINEAR),
                     diagram, 1000, 600, force);
         }
         return 0;

@@ -45,10 +45,10 @@ public final class PathwaySearch {
 
         /**
          * @param top number of pathways wanted
-         * @return limits with a threshold of 1e-9 M0 and a cap of 4 million partial pathways
+         * @return limits with a threshold of 1e-9 M0 and a cap of 2 million partial pathways (about 90 MB)
          */
         public static Limits of(int top) {
-            return new Limits(top, 1e-9, 4_000_000);
+            return new Limits(top, 1e-9, 2_000_000);
         }
     }
 

@@ -7,8 +7,10 @@ import java.awt.geom.Ellipse2D;
 import java.awt.geom.Line2D;
 import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import org.echotrellis.pathway.PhaseGraph;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.LegendItem;
@@ -20,14 +22,16 @@ import org.jfree.chart.plot.ValueMarker;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.title.TextTitle;
+import org.jfree.chart.ui.Layer;
 import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.xy.DefaultXYDataset;
 
 /**
  * The phase-graph diagram: dephasing order against time. Transverse states are solid lines rising
  * (or falling) by their dephasing step over each interval, longitudinal states dashed horizontal
- * lines; line width and opacity grow with the state's magnitude on a log scale from the tracing
- * threshold (faint) to M0 (full), so weak pathways fade out. RF pulses are thin vertical rules
+ * lines; line width and opacity are proportional to the state's magnitude relative to the largest
+ * state of the same interval (so relaxation does not wash out the later echoes and weak pathways
+ * fade out), or, on the logarithmic scale, grow from the tracing threshold to M0. RF pulses are thin vertical rules
  * (labelled with their flip when there are few), echoes are dots on the k = 0 axis.
  */
 public final class PhaseGraphDiagram {
@@ -40,13 +44,32 @@ public final class PhaseGraphDiagram {
 
     private PhaseGraphDiagram() { }
 
+    /** How line strength follows the state magnitude. */
+    public enum Scale {
+        /** Width and opacity proportional to |state| over the largest |state| of the same interval. */
+        LINEAR,
+        /** Width and opacity logarithmic from the tracing threshold (faint) to M0 (full). */
+        LOG
+    }
+
     /**
      * @param title chart title
      * @param subtitle subtitle line (may be null)
      * @param g the traced states
-     * @return the styled chart
+     * @return the styled chart, line strength proportional to magnitude
      */
     public static JFreeChart create(String title, String subtitle, PhaseGraph g) {
+        return create(title, subtitle, g, Scale.LINEAR);
+    }
+
+    /**
+     * @param title chart title
+     * @param subtitle subtitle line (may be null)
+     * @param g the traced states
+     * @param scale how line strength follows magnitude
+     * @return the styled chart
+     */
+    public static JFreeChart create(String title, String subtitle, PhaseGraph g, Scale scale) {
         NumberAxis x = new NumberAxis("Time (ms)");
         NumberAxis y = new NumberAxis("Dephasing order k");
         y.setStandardTickUnits(NumberAxis.createIntegerTickUnits());
@@ -75,15 +98,20 @@ public final class PhaseGraphDiagram {
         dots.setSeriesShape(0, new Ellipse2D.Double(-r, -r, 2 * r, 2 * r));
         XYPlot plot = new XYPlot(echoes, x, y, dots);
         double floor = g.threshold() > 0 ? g.threshold() : 1e-4;
+        Map<Double, Double> largest = new HashMap<>();
+        for (PhaseGraph.Segment s : g.segments()) {
+            largest.merge(s.startMs(), s.magnitude(), Math::max);
+        }
         List<PhaseGraph.Segment> order = new ArrayList<>(g.segments());
         order.sort(Comparator.comparingDouble(PhaseGraph.Segment::magnitude));
         for (PhaseGraph.Segment s : order) {
-            double w = strength(s.magnitude(), floor);
+            double w = scale == Scale.LOG ? strength(s.magnitude(), floor) : s.magnitude() / largest.get(s.startMs());
             Color base = s.longitudinal() ? LONGITUDINAL : TRANSVERSE;
-            Color c = new Color(base.getRed(), base.getGreen(), base.getBlue(), (int) Math.round(35 + 220 * w));
-            float width = (float) (0.5 + 2.5 * w);
+            Color c = new Color(base.getRed(), base.getGreen(), base.getBlue(), (int) Math.round(25 + 230 * w));
+            float width = (float) (0.4 + 3.2 * w);
             BasicStroke stroke = s.longitudinal() ? ChartStyle.dashed(width) : ChartStyle.line(width);
-            plot.addAnnotation(new XYLineAnnotation(s.startMs(), s.startOrder(), s.endMs(), s.endOrder(), stroke, c), false);
+            dots.addAnnotation(new XYLineAnnotation(s.startMs(), s.startOrder(), s.endMs(), s.endOrder(), stroke, c),
+                    Layer.BACKGROUND);
         }
         for (PhaseGraph.Pulse p : g.pulses()) {
             ValueMarker m = new ValueMarker(p.timeMs(), PULSE, new BasicStroke(0.7f));

@@ -86,7 +86,7 @@ class PathwaysCommandTest {
         Path png = dir.resolve("classes.png");
         Path svg = dir.resolve("graph.svg");
         CliRun r = CliRun.of("pathways", KNEE, "--b1", "0.8", "--plot", png.toString(), "--diagram", svg.toString(),
-                "--diagram-threshold", "0.01", "--diagram-max-order", "6");
+                "--diagram-threshold", "0.01", "--diagram-max-order", "6", "--diagram-scale", "log");
         assertEquals(0, r.code(), r.err());
         byte[] head = Files.readAllBytes(png);
         assertEquals((byte) 0x89, head[0]);
@@ -110,6 +110,8 @@ class PathwaysCommandTest {
         assertTrue(noEcho.err().contains("--echo"));
         CliRun badThreshold = CliRun.of("pathways", KNEE, "--diagram-threshold", "2");
         assertEquals(2, badThreshold.code());
+        CliRun badScale = CliRun.of("pathways", KNEE, "--diagram", "x.png", "--diagram-scale", "cubic");
+        assertEquals(2, badScale.code());
         CliRun missing = CliRun.of("pathways", "no-such-file.yaml");
         assertEquals(2, missing.code());
         CliRun badB1 = CliRun.of("pathways", KNEE, "--b1", "-1");

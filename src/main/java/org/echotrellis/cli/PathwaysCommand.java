@@ -31,7 +31,8 @@ import picocli.CommandLine.Spec;
                 + "as dephased longitudinal magnetization (m = 0: spin echoes; m >= 1: stimulated echoes), "
                 + "list the largest individual pathways of one echo, and draw the phase graph."},
         footer = {"", "Examples:",
-            "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --plot classes.png --diagram graph.svg",
+            "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --plot classes.png",
+            "  echotrellis pathways sequences/brain-mwi-32.yaml --b1 0.8 --diagram graph.svg --diagram-threshold 0.01",
             "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --echo 4 --top 8",
             "  echotrellis pathways sequences/three-pulse-stimulated.yaml --format json",
             "", "Pathway notation: origin (Z0 equilibrium, Rp regrown in period p), then the state after each "

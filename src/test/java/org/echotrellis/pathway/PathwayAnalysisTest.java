@@ -1,0 +1,55 @@
+package org.echotrellis.pathway;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.stream.Stream;
+import org.echotrellis.sequence.EchoTrain;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import org.echotrellis.sequence.Simulator;
+import org.junit.jupiter.api.Test;
+
+/** The protocol facade against the foundation simulator, on every shipped protocol file. */
+class PathwayAnalysisTest {
+    private static List<Path> protocols() throws IOException {
+        try (Stream<Path> files = Files.list(Path.of("sequences"))) {
+            return files.filter(f -> f.toString().endsWith(".yaml") || f.toString().endsWith(".json")).sorted().toList();
+        }
+    }
+
+    @Test
+    void classesOfEveryShippedProtocolAddUpToTheSimulatedEchoes() throws IOException {
+        List<Path> files = protocols();
+        assertTrue(files.size() >= 5);
+        for (Path f : files) {
+            for (double b1 : new double[] {0.75, 1.0}) {
+                Protocol p = ProtocolReader.read(f).withB1Scale(b1);
+                EchoTrain train = Simulator.simulate(p);
+                ClassDecomposition d = PathwayAnalysis.classes(p);
+                assertEquals(train.size(), d.echoCount(), f.toString());
+                for (int e = 0; e < d.echoCount(); e++) {
+                    // the foundation engines (CPMG fast path or general) must agree to 1e-12 (issue 3)
+                    assertEquals(train.re()[e], d.echoRe(e), 1e-12, f + " echo " + (e + 1));
+                    assertEquals(train.im()[e], d.echoIm(e), 1e-12, f + " echo " + (e + 1));
+                    assertEquals(train.labels().get(e), d.label(e));
+                    assertEquals(train.timesMs()[e], d.timeMs(e), 1e-9);
+                }
+            }
+        }
+    }
+
+    @Test
+    void topPathwaysOfTheKneeTrainExplainTheEcho() {
+        Protocol p = ProtocolReader.read(Path.of("sequences/knee-t2-16.yaml")).withB1Scale(0.8);
+        TopPathways tp = PathwayAnalysis.topPathways(p, 4, PathwaySearch.Limits.of(10_000));
+        assertTrue(tp.complete());
+        // all pathways above 1e-9 M0 leave less than 1e-6 of the echo unexplained
+        assertEquals(0.0, tp.unexplainedMagnitude(), 1e-6);
+        assertEquals("Z0 F0 F-1*4", tp.pathways().get(0).states());
+    }
+}

@@ -1,0 +1,81 @@
+package org.echotrellis.fit.spectrum;
+
+import org.echotrellis.Checks;
+
+/**
+ * A T2 window [lo, hi] in ms over which the spectrum is summed, e.g. 10–40 ms, whose fraction of the
+ * whole spectrum is the usual myelin water fraction estimate (MacKay et al., MRM 31:673, 1994).
+ * A bin belongs to the window when lo ≤ T2_j ≤ hi (edges widened by 1e-9 relative so that a window
+ * edge placed exactly on a grid point includes it).
+ *
+ * @param loMs lower edge in ms
+ * @param hiMs upper edge in ms
+ */
+public record FractionWindow(double loMs, double hiMs) {
+
+    /** Default window 10–40 ms. */
+    public static final FractionWindow DEFAULT = new FractionWindow(10, 40);
+
+    private static final double EDGE = 1e-9;
+
+    /** Validates LO &lt; HI, both finite and positive. */
+    public FractionWindow {
+        Checks.positive("--fraction-window-ms LO", loMs, null);
+        Checks.positive("--fraction-window-ms HI", hiMs, null);
+        Checks.require(hiMs > loMs, "--fraction-window-ms needs LO < HI, got " + loMs + ":" + hiMs);
+    }
+
+    /**
+     * Parses {@code LO:HI}.
+     *
+     * @param text the option value
+     * @return the window
+     * @throws org.echotrellis.InputException naming the option if malformed
+     */
+    public static FractionWindow parse(String text) {
+        String[] parts = text.split(":", -1);
+        Checks.require(parts.length == 2, "--fraction-window-ms must be LO:HI in ms, got '" + text + "'");
+        try {
+            return new FractionWindow(Double.parseDouble(parts[0].trim()), Double.parseDouble(parts[1].trim()));
+        } catch (NumberFormatException e) {
+            throw new org.echotrellis.InputException(
+                    "--fraction-window-ms must be LO:HI in ms (numbers), got '" + text + "'", e);
+        }
+    }
+
+    /** @return true when {@code t2Ms} lies in the window (edges inclusive) */
+    public boolean contains(double t2Ms) {
+        return t2Ms >= loMs * (1 - EDGE) && t2Ms <= hiMs * (1 + EDGE);
+    }
+
+    /**
+     * Refuses a window that reaches outside the grid or holds no grid point.
+     *
+     * @param grid the T2 grid
+     * @throws org.echotrellis.InputException naming {@code --fraction-window-ms}
+     */
+    public void checkWithin(T2Grid grid) {
+        String w = label();
+        Checks.require(loMs >= grid.minMs() * (1 - EDGE),
+                "--fraction-window-ms " + w + " starts below the T2 grid (" + grid.minMs() + " ms); allowed "
+                        + grid.minMs() + " to " + grid.maxMs() + " ms");
+        Checks.require(hiMs <= grid.maxMs() * (1 + EDGE),
+                "--fraction-window-ms " + w + " ends above the T2 grid (" + grid.maxMs() + " ms); allowed "
+                        + grid.minMs() + " to " + grid.maxMs() + " ms");
+        boolean any = false;
+        for (int j = 0; j < grid.bins() && !any; j++) {
+            any = contains(grid.t2Ms(j));
+        }
+        Checks.require(any, "--fraction-window-ms " + w + " contains no T2 grid point (grid "
+                + grid.minMs() + " to " + grid.maxMs() + " ms, " + grid.bins() + " bins)");
+    }
+
+    /** @return {@code LO:HI} as given */
+    public String label() {
+        return fmt(loMs) + ":" + fmt(hiMs);
+    }
+
+    private static String fmt(double v) {
+        return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
+    }
+}

@@ -1,0 +1,35 @@
+package org.echotrellis.fit.spectrum;
+
+/** Per-decay status codes of a spectrum fit (the status map of image output). */
+public final class SpectrumStatus {
+    private SpectrumStatus() { }
+
+    /** Fitted. */
+    public static final int OK = 0;
+    /** Outside the mask: not fitted. */
+    public static final int MASKED = 1;
+    /** A value is NaN or infinite: not fitted. */
+    public static final int INVALID = 2;
+    /** No positive echo: not fitted. */
+    public static final int NO_SIGNAL = 3;
+    /** NNLS stopped at its iteration limit; the result is the last iterate. */
+    public static final int NOT_CONVERGED = 4;
+    /** The regularisation target could not be bracketed; the result uses the nearest weight tried. */
+    public static final int TARGET_NOT_REACHED = 5;
+
+    /**
+     * @param status a code
+     * @return short description
+     */
+    public static String describe(int status) {
+        switch (status) {
+            case OK: return "ok";
+            case MASKED: return "outside mask";
+            case INVALID: return "non-finite echo value";
+            case NO_SIGNAL: return "no positive echo";
+            case NOT_CONVERGED: return "NNLS iteration limit";
+            case TARGET_NOT_REACHED: return "regularisation target not reached";
+            default: return "unknown";
+        }
+    }
+}

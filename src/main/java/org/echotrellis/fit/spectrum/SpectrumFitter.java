@@ -155,7 +155,8 @@ public final class SpectrumFitter {
                 chi2k[k] = Gram.residual(ak, m, n, x0, decay, offset, fitted);
             }
             double step = (search.hiDeg() - search.loDeg()) / (search.count() - 1);
-            angle = spline.argmin(search.loDeg(), step, chi2k, search.count());
+            angle = Math.max(search.loDeg(), Math.min(search.hiDeg(),
+                    spline.argmin(search.loDeg(), step, chi2k, search.count())));
             cache.basisAt(angle, a);
             Gram.fill(a, m, n, g);
             basis = a;

@@ -1,0 +1,177 @@
+package org.echotrellis.cli;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.echotrellis.Checks;
+import org.echotrellis.InputException;
+import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.fit.spectrum.BasisCache;
+import org.echotrellis.fit.spectrum.FractionWindow;
+import org.echotrellis.fit.spectrum.RefocusSearch;
+import org.echotrellis.fit.spectrum.Regularisation;
+import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.spectrum.T2Grid;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code spectrum}: multi-component T2 spectra of decay tables or multi-echo images. */
+@Command(name = "spectrum", mixinStandardHelpOptions = true,
+        description = {"Fit the distribution of T2 in each decay (NNLS on an EPG basis, Tikhonov regularisation, "
+                + "refocusing-angle refinement) and report window fractions, e.g. the short-T2 (myelin) water fraction.",
+            "Table input (.csv: echo time in ms, then one column per decay) prints spectra; with --out also writes "
+                + "spectra.csv, spectra.json and spectrum.png/.svg.",
+            "Image input (.nii/.nii.gz, 4-D x,y,z,echo) writes spectrum.nii.gz (one volume per T2 bin), maps, "
+                + "status, PNG previews and summary.json into --out."},
+        footer = {"", "Examples:",
+            "  echotrellis spectrum decays.csv --protocol sequences/brain-mwi-32.yaml --format json",
+            "  echotrellis spectrum brain.nii.gz --protocol sequences/brain-mwi-32.yaml --mask brain_mask.nii.gz "
+                + "--fraction-window-ms 10:40 --out mwf",
+            "", "Research tool, not a medical device."})
+public final class SpectrumCommand implements Callable<Integer> {
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "DATA", description = "Decay table (.csv) or 4-D image (.nii, .nii.gz).")
+    Path data;
+
+    @Option(names = "--protocol", required = true, paramLabel = "FILE",
+            description = "Protocol file of the acquisition (.yaml/.json); must be a CPMG train.")
+    Path protocol;
+
+    @Option(names = "--mask", paramLabel = "FILE", description = "3-D mask for image input (0 = skip).")
+    Path mask;
+
+    @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "10", description = "Shortest T2 of the grid (default: ${DEFAULT-VALUE}).")
+    double t2MinMs;
+
+    @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "2000", description = "Longest T2 of the grid (default: ${DEFAULT-VALUE}).")
+    double t2MaxMs;
+
+    @Option(names = "--t2-bins", paramLabel = "N", defaultValue = "40", description = "Log-spaced grid points (default: ${DEFAULT-VALUE}).")
+    int t2Bins;
+
+    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 of the basis (default: ${DEFAULT-VALUE}).")
+    double t1Ms;
+
+    @Option(names = "--regularisation", paramLabel = "METHOD", defaultValue = "chi2",
+            description = "none, chi2 (misfit rises by --misfit-increase) or gcv (default: ${DEFAULT-VALUE}).")
+    String regularisation;
+
+    @Option(names = "--misfit-increase", paramLabel = "FACTOR", defaultValue = "1.02",
+            description = "chi2 target: regularised misfit / unregularised misfit (default: ${DEFAULT-VALUE}).")
+    double misfitIncrease;
+
+    @Option(names = "--refocus-search-deg", paramLabel = "LO:HI:COUNT",
+            description = "Refocusing angles searched per decay (default: 50:180:8).")
+    String refocusSearch;
+
+    @Option(names = "--refocus-deg", paramLabel = "DEG", description = "Use this refocusing angle instead of searching.")
+    Double refocusDeg;
+
+    @Option(names = "--fraction-window-ms", paramLabel = "LO:HI",
+            description = "T2 window whose fraction is reported (repeatable; default: 10:40).")
+    List<String> windows = new ArrayList<>();
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Output directory (required for image input).")
+    Path out;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads for images (default: all cores).")
+    Integer threads;
+
+    @Option(names = "--force", description = "Overwrite existing output files.")
+    boolean force;
+
+    @Option(names = "--quiet", description = "No progress bar.")
+    boolean quiet;
+
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
+            description = "Table-input output on stdout: table, csv or json (default: ${DEFAULT-VALUE}).")
+    Format format;
+
+    /** Output formats for table input. */
+    enum Format { table, csv, json }
+
+    @Override
+    public Integer call() throws Exception {
+        Protocol p = ProtocolReader.read(protocol);
+        CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
+                + ": not a CPMG echo train (constant echo spacing, refocusing phase = excitation phase ± 90°); "
+                + "spectrum fitting needs one"));
+        SpectrumOptions options = options();
+        String name = data.getFileName() == null ? "" : data.getFileName().toString().toLowerCase(Locale.ROOT);
+        boolean image = name.endsWith(".nii") || name.endsWith(".nii.gz");
+        Checks.require(image || name.endsWith(".csv"),
+                "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
+        BasisCache cache = BasisCache.build(train, options.t1Ms(), options.grid(), options.search());
+        Map<String, Object> settings = settings(p, train, options);
+        if (image) {
+            Checks.require(out != null, "--out DIR is required for image input");
+            int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
+            Checks.inRange("--threads", n, 1, 1024, null);
+            SpectrumVolumes.run(data, mask, cache, options, n, out, force, settings,
+                    StderrProgressBar.of(spec.commandLine().getErr(), quiet), spec.commandLine().getOut());
+        } else {
+            Checks.require(mask == null, "--mask applies to image input only; DATA " + data + " is a table");
+            SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings, spec.commandLine().getOut());
+        }
+        return 0;
+    }
+
+    /** @return the fit options from the command line (validated; errors name the option) */
+    SpectrumOptions options() {
+        Checks.require(refocusDeg == null || refocusSearch == null,
+                "--refocus-deg and --refocus-search-deg exclude each other; give one");
+        RefocusSearch search = refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
+                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : RefocusSearch.DEFAULT;
+        List<FractionWindow> ws = new ArrayList<>();
+        for (String w : windows) {
+            ws.add(FractionWindow.parse(w));
+        }
+        if (ws.isEmpty()) {
+            ws.add(FractionWindow.DEFAULT);
+        }
+        return new SpectrumOptions(new T2Grid(t2MinMs, t2MaxMs, t2Bins), t1Ms, Regularisation.parse(regularisation),
+                misfitIncrease, search, ws);
+    }
+
+    private Map<String, Object> settings(Protocol p, CpmgTrain train, SpectrumOptions o) {
+        Map<String, Object> s = new LinkedHashMap<>();
+        s.put("command", "spectrum");
+        s.put("data", data.toString());
+        s.put("protocol", protocol.toString());
+        s.put("protocol_name", p.name());
+        s.put("echoes", train.echoes());
+        s.put("echo_spacing_ms", train.echoSpacingMs());
+        s.put("mask", mask == null ? null : mask.toString());
+        s.put("t2_min_ms", o.grid().minMs());
+        s.put("t2_max_ms", o.grid().maxMs());
+        s.put("t2_bins", o.grid().bins());
+        s.put("t2_ms", o.grid().t2Ms());
+        s.put("t1_ms", o.t1Ms());
+        s.put("regularisation", o.regularisation().label());
+        s.put("misfit_increase", o.misfitIncrease());
+        RefocusSearch r = o.search();
+        s.put("refocus", r.isFixed() ? Map.of("fixed_deg", r.loDeg())
+                : Map.of("lo_deg", r.loDeg(), "hi_deg", r.hiDeg(), "count", r.count()));
+        List<Map<String, Double>> ws = new ArrayList<>();
+        for (FractionWindow w : o.windows()) {
+            ws.add(Map.of("lo_ms", w.loMs(), "hi_ms", w.hiMs()));
+        }
+        s.put("fraction_windows", ws);
+        return s;
+    }
+}

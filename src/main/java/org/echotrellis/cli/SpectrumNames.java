@@ -1,0 +1,44 @@
+package org.echotrellis.cli;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.echotrellis.fit.spectrum.FractionWindow;
+import org.echotrellis.fit.spectrum.SpectrumFitter;
+import org.echotrellis.fit.spectrum.SpectrumOptions;
+
+/** Output names of the spectrum scalars (map file names, CSV columns, summary keys), in slot order. */
+final class SpectrumNames {
+    private SpectrumNames() { }
+
+    /**
+     * @param o fit options (windows)
+     * @return names indexed by the scalar slots of {@link SpectrumFitter}
+     */
+    static List<String> scalars(SpectrumOptions o) {
+        String[] fixed = new String[6];
+        fixed[SpectrumFitter.REFOCUS_DEG] = "refocus_deg";
+        fixed[SpectrumFitter.CHI2] = "chi2";
+        fixed[SpectrumFitter.CHI2_UNREGULARISED] = "chi2_unregularised";
+        fixed[SpectrumFitter.MU] = "regularisation_weight";
+        fixed[SpectrumFitter.SNR] = "snr";
+        fixed[SpectrumFitter.GM_T2_MS] = "gm_t2_ms";
+        List<String> names = new ArrayList<>(List.of(fixed));
+        for (FractionWindow w : o.windows()) {
+            String tag = tag(w.loMs()) + "_" + tag(w.hiMs()) + "ms";
+            names.add("fraction_" + tag);
+            names.add("gm_t2_" + tag);
+        }
+        return names;
+    }
+
+    /** @return a number as a file-name token: 10 → "10", 12.5 → "12p5" */
+    static String tag(double v) {
+        String s = v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
+        return s.replace('.', 'p');
+    }
+
+    /** @return the short label of a bin, e.g. "t2_10.0ms" */
+    static String bin(double t2Ms) {
+        return String.format(java.util.Locale.ROOT, "t2_%.4gms", t2Ms);
+    }
+}

@@ -1,0 +1,69 @@
+package org.echotrellis.plot;
+
+import java.awt.Color;
+import java.util.List;
+import org.jfree.chart.JFreeChart;
+import org.jfree.chart.axis.LogAxis;
+import org.jfree.chart.axis.NumberTickUnit;
+import org.jfree.chart.plot.IntervalMarker;
+import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.ui.Layer;
+import org.jfree.chart.ui.RectangleAnchor;
+import org.jfree.chart.ui.RectangleInsets;
+import org.jfree.chart.ui.TextAnchor;
+
+/**
+ * T2 spectrum plot: amplitude per bin against T2 on a logarithmic axis, one series per decay, with
+ * the fraction windows shaded.
+ */
+public final class SpectrumPlot {
+    private static final Color WINDOW_FILL = new Color(0x8FB8A8);
+
+    private SpectrumPlot() { }
+
+    /**
+     * @param title      chart title
+     * @param subtitle   subtitle (settings), or null
+     * @param t2Ms       bin T2 values in ms (not modified)
+     * @param names      series names
+     * @param amplitudes one amplitude array per series, same length as {@code t2Ms} (not modified)
+     * @param windowsMs  shaded windows as {lo, hi} pairs in ms
+     * @return the styled chart
+     */
+    public static JFreeChart chart(String title, String subtitle, double[] t2Ms, List<String> names,
+                                   List<double[]> amplitudes, List<double[]> windowsMs) {
+        LineChart c = LineChart.create(title, "T2 (ms)", "amplitude (signal units)").logX();
+        if (subtitle != null) {
+            c.subtitle(subtitle);
+        }
+        for (int i = 0; i < names.size(); i++) {
+            c.add(names.get(i), t2Ms, amplitudes.get(i), LineChart.Look.LINE_MARKERS);
+        }
+        JFreeChart chart = c.build();
+        XYPlot plot = chart.getXYPlot();
+        if (plot.getDomainAxis() instanceof LogAxis ax && t2Ms.length > 0) {
+            ax.setAutoTickUnitSelection(false);
+            ax.setTickUnit(new NumberTickUnit(1.0));          // one major tick per decade
+            ax.setMinorTickCount(9);
+            ax.setMinorTickMarksVisible(true);
+            ax.setRange(t2Ms[0] / 1.15, t2Ms[t2Ms.length - 1] * 1.15);
+        }
+        for (double[] w : windowsMs) {
+            IntervalMarker m = new IntervalMarker(w[0], w[1]);
+            m.setPaint(WINDOW_FILL);
+            m.setAlpha(0.25f);
+            m.setLabel(fmt(w[0]) + "–" + fmt(w[1]) + " ms");
+            m.setLabelFont(ChartStyle.TICK_FONT);
+            m.setLabelPaint(ChartStyle.INK);
+            m.setLabelAnchor(RectangleAnchor.TOP);
+            m.setLabelTextAnchor(TextAnchor.TOP_CENTER);
+            m.setLabelOffset(new RectangleInsets(6, 0, 0, 0));
+            plot.addDomainMarker(m, Layer.BACKGROUND);
+        }
+        return chart;
+    }
+
+    private static String fmt(double v) {
+        return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
+    }
+}

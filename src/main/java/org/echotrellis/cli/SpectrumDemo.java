@@ -1,0 +1,161 @@
+package org.echotrellis.cli;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.fit.spectrum.BasisCache;
+import org.echotrellis.fit.spectrum.SpectrumFitter;
+import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.spectrum.SpectrumStatus;
+import org.echotrellis.plot.ChartFiles;
+import org.echotrellis.plot.MapPreview;
+import org.echotrellis.plot.SpectrumPlot;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+
+/**
+ * Demo part: T2 spectra of an invented brain-like slice ({@link SpectrumPhantom}) with the default
+ * spectrum settings — short-window fraction map, fitted refocusing-angle map (against the truth) and
+ * the spectra of chosen voxels.
+ */
+final class SpectrumDemo implements DemoSection {
+    static final int NX = 96;
+    static final int NY = 80;
+    static final double SNR = 200;
+    static final long SEED = 2026;
+
+    @Override
+    public String title() {
+        return "T2 spectra and short-T2 fraction of a synthetic brain slice";
+    }
+
+    @Override
+    public void run(DemoContext ctx) {
+        Protocol p = ProtocolReader.readBuiltIn("brain-mwi-32.yaml");
+        CpmgTrain train = p.cpmg().orElseThrow();
+        SpectrumOptions o = SpectrumOptions.DEFAULT;
+        SpectrumPhantom ph = new SpectrumPhantom(NX, NY, train, SNR, SEED);
+        BasisCache cache = BasisCache.build(train, o.t1Ms(), o.grid(), o.search());
+        SpectrumFitter fitter = new SpectrumFitter(cache, o);
+        int n = NX * NY;
+        int bins = o.grid().bins();
+        float[] fraction = nanMap(n);
+        float[] fractionTrue = nanMap(n);
+        float[] angle = nanMap(n);
+        float[] angleTrue = nanMap(n);
+        double[] spectra = new double[n * bins];
+        double[] amp = new double[bins];
+        double[] sc = new double[fitter.scalarCount()];
+        long t0 = System.nanoTime();
+        int fitted = 0;
+        for (int v = 0; v < n; v++) {
+            if (ph.region[v] == SpectrumPhantom.BACKGROUND) {
+                continue;
+            }
+            int status = fitter.fit(ph.data, v * ph.echoes, amp, sc);
+            fractionTrue[v] = (float) ph.shortFraction[v];
+            angleTrue[v] = (float) (180 * ph.b1[v]);
+            if (status == SpectrumStatus.OK || status == SpectrumStatus.TARGET_NOT_REACHED) {
+                fraction[v] = (float) sc[SpectrumFitter.fractionSlot(0)];
+                angle[v] = (float) sc[SpectrumFitter.REFOCUS_DEG];
+                System.arraycopy(amp, 0, spectra, v * bins, bins);
+                fitted++;
+            }
+        }
+        double seconds = (System.nanoTime() - t0) * 1e-9;
+        String win = String.format(Locale.ROOT, "%.0f–%.0f ms", o.windows().get(0).loMs(), o.windows().get(0).hiMs());
+        MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-map.png"), fraction, NX, NY, 1,
+                "Fitted short-T2 fraction (" + win + ")", "fraction", 0, 0.3, ctx.force());
+        MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-truth.png"), fractionTrue, NX, NY, 1,
+                "True short-T2 fraction (phantom)", "fraction", 0, 0.3, ctx.force());
+        MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-map.png"), angle, NX, NY, 1,
+                "Fitted refocusing angle", "angle (deg)", 130, 180, ctx.force());
+        MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-truth.png"), angleTrue, NX, NY, 1,
+                "True refocusing angle (180° × B1)", "angle (deg)", 130, 180, ctx.force());
+        int[] picks = {pick(ph, SpectrumPhantom.TRACT), pick(ph, SpectrumPhantom.WHITE), pick(ph, SpectrumPhantom.GREY)};
+        String[] labels = {"dense tract", "white matter", "cortex"};
+        List<String> names = new ArrayList<>();
+        List<double[]> amps = new ArrayList<>();
+        for (int k = 0; k < picks.length; k++) {
+            int v = picks[k];
+            names.add(String.format(Locale.ROOT, "%s (%d, %d): fraction %.3f, true %.2f", labels[k], v % NX, v / NX,
+                    fraction[v], ph.shortFraction[v]));
+            amps.add(Arrays.copyOfRange(spectra, v * bins, (v + 1) * bins));
+        }
+        for (String ext : new String[] {"png", "svg"}) {
+            ChartFiles.write(SpectrumPlot.chart("T2 spectra of single voxels (synthetic slice)",
+                    String.format(Locale.ROOT, "32 echoes, ESP 10 ms, SNR %.0f, regularisation chi2 1.02, refocusing angle fitted", SNR),
+                    o.grid().t2Ms(), names, amps, List.of(new double[] {10, 40})),
+                    ctx.file("spectrum-voxels." + ext), 900, 560, ctx.force());
+        }
+        summary(ctx.summary(), ph, fraction, angle, fitted, seconds);
+    }
+
+    private static void summary(StringBuilder s, SpectrumPhantom ph, float[] fraction, float[] angle, int fitted,
+                                double seconds) {
+        s.append("## T2 spectra of a synthetic brain slice\n\n")
+                .append(String.format(Locale.ROOT, "An invented %d × %d slice (protocol `brain-mwi-32`: 32 echoes, "
+                        + "ESP 10 ms): a short-T2 pool (18 ms) in \"white matter\" (about 11 %%) and a denser tract "
+                        + "(22 %%), cortex 3 %%, fluid-filled \"ventricles\"; B1 falls from 0.98 at the centre to about "
+                        + "0.76 at the rim; Rician magnitude noise, SNR %.0f in white matter. Default `spectrum` settings "
+                        + "(40 bins 10–2000 ms, 8 angles 50–180°, χ² factor 1.02, window 10–40 ms). %d voxels in %.2f s "
+                        + "on one thread.%n%n", NX, NY, SNR, fitted, seconds))
+                .append("| region | voxels | true fraction | fitted fraction, median (IQR) | |fitted − true angle|, median |\n")
+                .append("|---|---|---|---|---|\n");
+        String[] names = {"", "cortex", "white matter", "dense tract", "ventricles"};
+        for (int r = 1; r <= 4; r++) {
+            List<Double> f = new ArrayList<>();
+            List<Double> t = new ArrayList<>();
+            List<Double> da = new ArrayList<>();
+            for (int v = 0; v < fraction.length; v++) {
+                if (ph.region[v] == r && Float.isFinite(fraction[v])) {
+                    f.add((double) fraction[v]);
+                    t.add(ph.shortFraction[v]);
+                    da.add(Math.abs(angle[v] - 180 * ph.b1[v]));
+                }
+            }
+            s.append(String.format(Locale.ROOT, "| %s | %d | %.3f | %.3f (%.3f–%.3f) | %.1f° |%n", names[r], f.size(),
+                    q(t, 0.5), q(f, 0.5), q(f, 0.25), q(f, 0.75), q(da, 0.5)));
+        }
+        s.append("\nThe fraction of the spectrum between 10 and 40 ms is the usual myelin water fraction estimate; ")
+                .append("here it is compared with the phantom's truth. It reads low by about 0.01–0.02: the ")
+                .append("minimum-energy (identity) penalty shrinks the short-T2 amplitudes most, because their basis ")
+                .append("columns carry the least signal energy, and noise lets the short pool trade amplitude with ")
+                .append("the main peak. Figures: `spectrum-fraction-map.png`, ")
+                .append("`spectrum-fraction-truth.png`, `spectrum-refocus-map.png`, `spectrum-refocus-truth.png`, ")
+                .append("`spectrum-voxels.png` (and `.svg`).\n\n");
+    }
+
+    private static double q(List<Double> values, double p) {
+        if (values.isEmpty()) {
+            return Double.NaN;
+        }
+        double[] a = values.stream().mapToDouble(Double::doubleValue).sorted().toArray();
+        double pos = p * (a.length - 1);
+        int lo = (int) Math.floor(pos);
+        int hi = Math.min(a.length - 1, lo + 1);
+        return a[lo] + (pos - lo) * (a[hi] - a[lo]);
+    }
+
+    /** The first voxel of a region scanning out from the centre column (a deterministic choice). */
+    private static int pick(SpectrumPhantom ph, int region) {
+        int cx = NX / 2;
+        for (int j = NY / 2; j < NY; j++) {
+            for (int di = 0; di < NX / 2; di++) {
+                int v = (cx + di) + NX * j;
+                if (ph.region[v] == region && ph.region[v - 1] == region && ph.region[v + 1] == region) {
+                    return v;
+                }
+            }
+        }
+        throw new IllegalStateException("phantom has no region " + region);
+    }
+
+    private static float[] nanMap(int n) {
+        float[] m = new float[n];
+        Arrays.fill(m, Float.NaN);
+        return m;
+    }
+}

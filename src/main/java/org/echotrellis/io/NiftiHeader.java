@@ -234,6 +234,34 @@ public final class NiftiHeader {
     }
 
     /**
+     * A 4-D header on the same spatial grid and geometry with {@code n} volumes along dim 4, for
+     * example one volume per T2 bin of a spectrum. pixdim[4] is set to 1 and the time unit dropped
+     * (dim 4 is not time).
+     *
+     * @param n volumes along dim 4 (1..32767)
+     * @return the header
+     */
+    public NiftiHeader withVolumes(int n) {
+        if (n < 1 || n > Short.MAX_VALUE) {
+            throw new IllegalArgumentException("NIfTI dimension 4 must be 1..32767, got " + n);
+        }
+        int[] d = new int[8];
+        float[] p = pixdim.clone();
+        d[0] = 4;
+        for (int a = 1; a <= 3; a++) {
+            d[a] = size(a);
+        }
+        d[4] = n;
+        for (int a = 5; a <= 7; a++) {
+            d[a] = 1;
+            p[a] = 1f;
+        }
+        p[4] = 1f;
+        return new NiftiHeader(d, p, datatype, voxOffset, sclSlope, sclInter, xyztUnits & 0x07, qformCode, sformCode,
+                quatern, srow, description, order);
+    }
+
+    /**
      * @param sizes voxel sizes for axes 1..n
      * @return a copy with pixdim[1..n] set
      */

@@ -154,6 +154,11 @@ final class DesignOutputs {
                         : String.format(Locale.ROOT, "Best achievable alternative: the target scaled by %.4f is reachable "
                         + "at every echo.%n", r.reachableScale()));
             }
+            if (!r.exposure().withinLimits()) {
+                sb.append(Double.isNaN(r.budgetScale()) ? "No scaled copy of the target down to 0.02 is reachable within the limits.\n"
+                        : String.format(Locale.ROOT, "The schedule exceeds the limits; the target scaled by %.4f is "
+                        + "reachable at every echo within them.%n", r.budgetScale()));
+            }
         } else {
             sb.append(String.format(Locale.ROOT, "Objective %s: %.6f; best constant flip in the same limits %.2f° gives %.6f "
                     + "(ratio %.3f).%n", r.spec(), r.objectiveValue(), r.constantFlipDeg(), r.constantObjective(),

@@ -34,9 +34,12 @@ public final class DesignJob {
         Inversion inv = inverter.invert(p, amplitudes, startup);
         double scale = inv.reachable() ? 1.0 : inverter.largestReachableScale(p, amplitudes, startup);
         double[] flips = inv.flipsDeg();
+        double budgetScale = limits.allows(rf, p.excitationFlipDeg(), flips) ? Double.NaN
+                : budgetScale(inverter, p, amplitudes, startup, rf, limits);
         return new DesignReport("target", target.spec(), p, flips, inv.predicted(), inv.effectiveTarget(),
-                inv.startupEchoes(), inv.firstUnreachableEcho(), inv.unreachableEchoes(), scale, Double.NaN,
-                Double.NaN, Double.NaN, exposure(p, flips, rf, limits, reference), comparisons(p, flips, compare));
+                inv.startupEchoes(), inv.firstUnreachableEcho(), inv.unreachableEchoes(), scale, budgetScale,
+                Double.NaN, Double.NaN, Double.NaN, exposure(p, flips, rf, limits, reference),
+                comparisons(p, flips, compare));
     }
 
     /**
@@ -61,8 +64,52 @@ public final class DesignJob {
         new CpmgStepper().run(p.echoes(), p.echoSpacingMs(), p.t1Ms(), p.t2Ms(), p.b1Scale(), p.excitationFlipDeg(),
                 flips, predicted);
         return new DesignReport("objective", objective.spec(), p, flips, predicted, new double[0], 0, 0, 0, Double.NaN,
-                r.objective(), r.constantFlipDeg(), r.constantObjective(), exposure(p, flips, rf, limits, reference),
+                Double.NaN, r.objective(), r.constantFlipDeg(), r.constantObjective(), exposure(p, flips, rf, limits, reference),
                 comparisons(p, flips, compare));
+    }
+
+    /**
+     * Largest factor s of the prescription that is reachable at every echo with a schedule that meets
+     * the limits: a scan from 1
+     * downward in steps of 0.02, refined by 30 bisection steps above the first factor that meets
+     * them. (The RF is not monotone in s: a target too low to reach can call for 180° pulses.)
+     *
+     * @return s, or NaN when no factor down to 0.02 meets them
+     */
+    static double budgetScale(FlipInverter inverter, DesignProblem p, double[] target, Startup startup, RfExposure rf,
+                              ExposureLimits limits) {
+        double[] scaled = new double[target.length];
+        double hi = 1;
+        double lo = Double.NaN;
+        for (int step = 49; step >= 1; step--) {
+            double sc = step * 0.02;
+            if (meets(inverter, p, target, sc, scaled, startup, rf, limits)) {
+                lo = sc;
+                break;
+            }
+            hi = sc;
+        }
+        if (Double.isNaN(lo)) {
+            return Double.NaN;
+        }
+        for (int it = 0; it < 30; it++) {
+            double mid = 0.5 * (lo + hi);
+            if (meets(inverter, p, target, mid, scaled, startup, rf, limits)) {
+                lo = mid;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+
+    private static boolean meets(FlipInverter inverter, DesignProblem p, double[] target, double s, double[] scaled,
+                                 Startup startup, RfExposure rf, ExposureLimits limits) {
+        for (int i = 0; i < target.length; i++) {
+            scaled[i] = s * target[i];
+        }
+        Inversion inv = inverter.invert(p, scaled, startup);
+        return inv.reachable() && limits.allows(rf, p.excitationFlipDeg(), inv.flipsDeg());
     }
 
     /** RF figures of a schedule. */

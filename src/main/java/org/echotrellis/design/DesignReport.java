@@ -22,6 +22,9 @@ import java.util.Map;
  * @param firstUnreachableEcho first echo that misses its target, 0 when none (prescribed mode)
  * @param unreachableEchoes number of echoes that miss (prescribed mode)
  * @param reachableScale largest factor of the target that is reachable everywhere, NaN if none
+ * @param budgetScale largest factor of the target reachable everywhere by a schedule that meets the
+ *                    limits, when the schedule itself does not meet them (prescribed mode); NaN
+ *                    otherwise or when none does
  * @param objectiveValue objective of the schedule (budgeted mode), else NaN
  * @param constantFlipDeg best constant flip in the same limits (budgeted mode), else NaN
  * @param constantObjective objective of that constant schedule, else NaN
@@ -30,7 +33,7 @@ import java.util.Map;
  */
 public record DesignReport(String mode, String spec, DesignProblem problem, double[] flipsDeg, double[] predicted,
                            double[] target, int startupEchoes, int firstUnreachableEcho, int unreachableEchoes,
-                           double reachableScale, double objectiveValue, double constantFlipDeg,
+                           double reachableScale, double budgetScale, double objectiveValue, double constantFlipDeg,
                            double constantObjective, ExposureSummary exposure, List<Comparison> comparisons) {
     /** Copies arrays and the list. */
     public DesignReport {
@@ -75,6 +78,7 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
             m.put("startup_echoes", startupEchoes);
             m.put("unreachable_echoes", unreachableEchoes);
             m.put("reachable_scale", nullIfNaN(reachableScale));
+            m.put("budget_scale", nullIfNaN(budgetScale));
         } else {
             m.put("objective_value", objectiveValue);
             m.put("best_constant_flip_deg", constantFlipDeg);

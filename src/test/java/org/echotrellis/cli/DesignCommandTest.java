@@ -111,6 +111,25 @@ class DesignCommandTest {
     }
 
     @Test
+    void absoluteSarScalesWithRfPower() throws Exception {
+        // SAR ∝ Σ∫B1²dt / TR for the same coil and patient (common practice): with the all-180° protocol
+        // itself as the reference at the same TR and slices, the estimate is the reference SAR times the
+        // RF energy ratio with the excitation counted
+        Run r = run("--protocol", protocol().toString(), "--target", "constant:0.45", "--tr-ms", "2000",
+                "--slices", "4", "--reference-sar-w-per-kg", "2.0", "--format", "json", "--quiet");
+        assertEquals(0, r.code(), r.err());
+        JsonNode x = Json.MAPPER.readTree(r.out()).get("exposure");
+        assertEquals(2.0 * x.get("relative_sar_with_excitation").asDouble(), x.get("sar_estimate_w_per_kg").asDouble(), 1e-12);
+        // a reference played at twice the TR deposits half the power: the estimate doubles
+        Run slow = run("--protocol", protocol().toString(), "--target", "constant:0.45", "--tr-ms", "2000",
+                "--slices", "4", "--reference-sar-w-per-kg", "2.0", "--reference-tr-ms", "4000", "--format", "json", "--quiet");
+        JsonNode y = Json.MAPPER.readTree(slow.out()).get("exposure");
+        assertEquals(2 * x.get("sar_estimate_w_per_kg").asDouble(), y.get("sar_estimate_w_per_kg").asDouble(), 1e-12);
+        Run noTr = run("--protocol", protocol().toString(), "--target", "constant:0.45", "--reference-sar-w-per-kg", "2");
+        assertEquals(2, noTr.code());
+    }
+
+    @Test
     void helpShowsExample() {
         Run r = run("--help");
         assertEquals(0, r.code());

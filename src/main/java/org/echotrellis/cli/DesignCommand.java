@@ -41,9 +41,11 @@ import picocli.CommandLine.Spec;
         footer = {"", "Targets: constant:LEVEL, ramp:FIRST:LAST, decay:PSEUDO_T2_MS[:START], list:FILE",
             "Objectives: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B]",
             "", "Examples:",
-            "  echotrellis design --protocol sequences/fse-variable-1p5t.yaml --target constant:0.4 --out fse-design",
-            "  echotrellis design --protocol sequences/brain-mwi-32.yaml --objective signal:8 --sar-budget 0.5 \\",
-            "      --tr-ms 3000 --slices 20 --b1rms-limit-ut 2.5 --format json"})
+            "  echotrellis design --protocol sequences/fse-variable-1p5t.yaml \\",
+            "      --target constant:0.4 --out fse-design",
+            "  echotrellis design --protocol sequences/brain-fse-80-3t.yaml \\",
+            "      --objective min:20:80 --sar-budget 0.5 --tr-ms 4000 --slices 12",
+            "", "Estimates only: the scanner's SAR monitor, local rules and the MR physicist decide."})
 public final class DesignCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;

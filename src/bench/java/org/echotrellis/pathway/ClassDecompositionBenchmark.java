@@ -56,7 +56,7 @@ public class ClassDecompositionBenchmark {
         bh.consume(w.im);
     }
 
-    /** The 10 largest pathways of the last echo, amplitude threshold 1e-9. */
+    /** The 10 largest pathways of the last echo, no amplitude threshold. */
     @Benchmark
     public TopPathways topTenOfLastEcho(Work w) {
         return w.search.find(w.schedule, w.schedule.echoCount() - 1, 1000, 60, 0.9, PathwaySearch.Limits.of(10));

@@ -40,7 +40,7 @@ final class PathwayDemo implements DemoSection {
                 1000, 600, ctx.force());
         ChartFiles.write(PhaseGraphDiagram.create("Knee train: phase graph", sub, g), ctx.file("knee-phase-graph.svg"),
                 1000, 600, ctx.force());
-        TopPathways tp = PathwayAnalysis.topPathways(p, ECHO, PathwaySearch.Limits.of(5));
+        TopPathways tp = PathwayAnalysis.topPathways(p, d, ECHO, PathwaySearch.Limits.of(5));
 
         StringBuilder s = ctx.summary();
         s.append("## Coherence pathways at B1 = 0.8\n\n")

@@ -117,6 +117,9 @@ final class PathwayReport {
                 sb.append(String.format(Locale.ROOT, pr, rank++, pw.states(), pw.magnitude(),
                         phaseDeg(pw.re(), pw.im()), pw.share(), pw.longitudinalIntervals()));
             }
+            if (tp.pathways().isEmpty()) {
+                sb.append("(no pathway above --min-amplitude)\n");
+            }
             sb.append(String.format(Locale.ROOT, "unexplained by the listed pathways: share %.5f, |rest| = %.3e%s%n",
                     tp.unexplainedShare(), tp.unexplainedMagnitude(),
                     tp.complete() ? "" : " (search stopped at its memory cap)"));

@@ -63,8 +63,9 @@ public final class PathwaysCommand implements Callable<Integer> {
     @Option(names = "--top", paramLabel = "K", description = "How many pathways to list for --echo (default 10).")
     Integer top;
 
-    @Option(names = "--min-amplitude", paramLabel = "A", defaultValue = "1e-9",
-            description = "Pathway search: do not follow pathways smaller than A (fraction of M0; default: ${DEFAULT-VALUE}).")
+    @Option(names = "--min-amplitude", paramLabel = "A", defaultValue = "0",
+            description = "Pathway search: do not follow pathways smaller than A (fraction of M0; default: "
+                    + "${DEFAULT-VALUE}, i.e. list the K largest however small).")
     double minAmplitude;
 
     @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
@@ -121,7 +122,7 @@ public final class PathwaysCommand implements Callable<Integer> {
         TopPathways tp = null;
         if (echo != null) {
             PathwaySearch.Limits lim = new PathwaySearch.Limits(top == null ? 10 : top, minAmplitude, 2_000_000);
-            tp = PathwayAnalysis.topPathways(p, echo, lim);
+            tp = PathwayAnalysis.topPathways(p, d, echo, lim);
         }
         PrintWriter o = spec.commandLine().getOut();
         switch (format) {

@@ -148,6 +148,7 @@ public final class ClassTracker {
     }
 
     private void prepare(Schedule s) {
+        s.checkWorkspace();
         int k = s.maxOrder;
         fw = 2 * k + 1;
         zw = k + 1;

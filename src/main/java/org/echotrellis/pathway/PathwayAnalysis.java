@@ -46,10 +46,24 @@ public final class PathwayAnalysis {
      * @return the largest pathways of that echo
      */
     public static TopPathways topPathways(Protocol p, int echo, PathwaySearch.Limits limits) {
+        return topPathways(p, classes(p), echo, limits);
+    }
+
+    /**
+     * @param p protocol
+     * @param classes its class decomposition ({@link #classes(Protocol)}), which supplies the echo
+     * @param echo echo number, 1-based
+     * @param limits search limits
+     * @return the largest pathways of that echo
+     */
+    public static TopPathways topPathways(Protocol p, ClassDecomposition classes, int echo,
+                                          PathwaySearch.Limits limits) {
         Schedule s = schedule(p.events());
-        Checks.inRange("--echo", echo, 1, Math.max(1, s.echoCount()), null);
         Checks.require(s.echoCount() > 0, "the protocol has no echoes (" + p.source() + ")");
-        return new PathwaySearch().find(s, echo - 1, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale(), limits);
+        Checks.inRange("--echo", echo, 1, s.echoCount(), null);
+        Checks.require(classes.echoCount() == s.echoCount(), "class decomposition of another protocol");
+        return new PathwaySearch().find(s, echo - 1, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale(), limits,
+                classes.echoRe(echo - 1), classes.echoIm(echo - 1));
     }
 
     /**

@@ -45,10 +45,11 @@ public final class PathwaySearch {
 
         /**
          * @param top number of pathways wanted
-         * @return limits with a threshold of 1e-9 M0 and a cap of 2 million partial pathways (about 90 MB)
+         * @return limits without an amplitude threshold (the search still only extends partial
+         *     pathways that can beat the K-th largest) and a cap of 2 million partial pathways (about 90 MB)
          */
         public static Limits of(int top) {
-            return new Limits(top, 1e-9, 2_000_000);
+            return new Limits(top, 0.0, 2_000_000);
         }
     }
 
@@ -79,8 +80,18 @@ public final class PathwaySearch {
     public TopPathways find(Schedule s, int echo, double t1Ms, double t2Ms, double b1, Limits limits) {
         Checks.inRange("echo", echo + 1, 1, s.echoCount(), null);
         ClassDecomposition d = new ClassTracker().decompose(s, t1Ms, t2Ms, b1);
-        double ar = d.echoRe(echo);
-        double ai = d.echoIm(echo);
+        return find(s, echo, t1Ms, t2Ms, b1, limits, d.echoRe(echo), d.echoIm(echo));
+    }
+
+    /**
+     * As {@link #find(Schedule, int, double, double, double, Limits)}, with the echo already known
+     * (from a class decomposition of the same schedule and tissue).
+     *
+     * @param ar real part of the echo
+     * @param ai imaginary part of the echo
+     */
+    TopPathways find(Schedule s, int echo, double t1Ms, double t2Ms, double b1, Limits limits, double ar, double ai) {
+        Checks.inRange("echo", echo + 1, 1, s.echoCount(), null);
         pm = new PeriodModel(s, echo, t1Ms, t2Ms, b1);
         bound = pm.gainBounds();
         threshold = limits.minAmplitude();

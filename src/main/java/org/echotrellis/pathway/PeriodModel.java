@@ -42,7 +42,14 @@ final class PeriodModel {
             }
         }
         last = pulses;
-        order = sumAbs;
+        // states beyond the schedule's largest useful order can never reach an echo
+        order = Math.min(sumAbs, s.maxOrder);
+        long bytes = 8L * (pulses + 1) * 2 * (2L * order + 1);
+        if (bytes > Schedule.MAX_WORKSPACE_BYTES) {
+            throw new org.echotrellis.InputException(String.format(java.util.Locale.ROOT,
+                    "pathway search up to echo %d needs %d MB (%d pulses x dephasing orders up to %d); the limit is %d MB",
+                    echo + 1, bytes >> 20, pulses, order, Schedule.MAX_WORKSPACE_BYTES >> 20));
+        }
         int n = pulses + 1;
         c2 = new double[n];
         s2 = new double[n];

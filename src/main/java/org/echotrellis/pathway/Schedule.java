@@ -18,6 +18,11 @@ import org.echotrellis.Checks;
  * <p>Immutable and thread-safe.
  */
 public final class Schedule {
+    /** Largest workspace the pathway analysis allocates for one schedule (bytes). */
+    public static final long MAX_WORKSPACE_BYTES = 256L << 20;
+    /** Largest class decomposition accepted, in state updates (about half a minute on one core). */
+    public static final long MAX_STATE_UPDATES = 3_000_000_000L;
+
     static final byte RF = 0;
     static final byte INTERVAL = 1;
     static final byte ECHO = 2;
@@ -36,6 +41,8 @@ public final class Schedule {
     final int maxOrder;
     /** Number of periods that contain at least one interval: the class index never exceeds it. */
     final int timedPeriods;
+    /** Estimated state updates of one class decomposition (classes held &times; orders, summed over operations). */
+    final long stateUpdates;
     /** Classes of echo e occupy [classOffset[e], classOffset[e + 1]) in a flattened decomposition. */
     final int[] classOffset;
 
@@ -111,14 +118,25 @@ public final class Schedule {
         }
         int past = 0;
         int max = 0;
+        long updates = 0;
+        int classes = 1;
+        boolean counted = false;
         for (int i = 0; i < n; i++) {
             if (op[i] == INTERVAL) {
                 past += Math.abs((int) second[i]);
+                if (!counted) {
+                    classes++;
+                    counted = true;
+                }
+            } else if (op[i] == RF) {
+                counted = false;
             }
             window[i] = Math.min(past, reachAfter[i]);
             max = Math.max(max, window[i]);
+            updates += (long) classes * (window[i] + 1);
         }
         maxOrder = max;
+        stateUpdates = updates;
     }
 
     /** @return number of echo read-outs */
@@ -147,6 +165,31 @@ public final class Schedule {
      */
     public int classCount(int echo) {
         return classOffset[echo + 1] - classOffset[echo];
+    }
+
+    /** @return bytes of the class tracker's workspace: (classes) &times; (3K + 2) complex numbers */
+    public long classWorkspaceBytes() {
+        return 16L * (timedPeriods + 1) * (3L * maxOrder + 2);
+    }
+
+    /**
+     * Refuses schedules whose class decomposition would need more than {@link #MAX_WORKSPACE_BYTES}
+     * or more than {@link #MAX_STATE_UPDATES} state updates.
+     */
+    void checkWorkspace() {
+        long bytes = classWorkspaceBytes();
+        if (bytes > MAX_WORKSPACE_BYTES) {
+            throw new org.echotrellis.InputException(String.format(java.util.Locale.ROOT,
+                    "pathway analysis of this protocol needs %d MB (%d periods x dephasing orders up to %d); "
+                            + "the limit is %d MB: use fewer echoes or smaller dephasing steps",
+                    bytes >> 20, timedPeriods, maxOrder, MAX_WORKSPACE_BYTES >> 20));
+        }
+        if (stateUpdates > MAX_STATE_UPDATES) {
+            throw new org.echotrellis.InputException(String.format(java.util.Locale.ROOT,
+                    "pathway analysis of this protocol needs about %.1e state updates (%d periods x dephasing orders "
+                            + "up to %d); the limit is %.0e: use fewer echoes or smaller dephasing steps",
+                    (double) stateUpdates, timedPeriods, maxOrder, (double) MAX_STATE_UPDATES));
+        }
     }
 
     /** @return echo labels in read-out order (a copy) */

@@ -120,6 +120,24 @@ class ClassTrackerTest {
     }
 
     @Test
+    void oversizedSchedulesAreRefusedAsInput() {
+        Schedule.Builder b = Schedule.builder().rf(90, 90);
+        for (int n = 0; n < 600; n++) {
+            b.interval(1, 1000).rf(120, 0).interval(1, 1000).echo();
+        }
+        Schedule s = b.build();
+        org.echotrellis.InputException ex = org.junit.jupiter.api.Assertions.assertThrows(
+                org.echotrellis.InputException.class, () -> new ClassTracker().decompose(s, 1000, 100, 1));
+        assertTrue(ex.getMessage().contains("limit"), ex.getMessage());
+        org.junit.jupiter.api.Assertions.assertThrows(org.echotrellis.InputException.class,
+                () -> new PathwaySearch().find(s, 599, 1000, 100, 1, PathwaySearch.Limits.of(3)));
+        // the 128-echo CPMG train stays far inside both limits
+        Schedule cpmg = TestTrains.cpmg(128, 8, 130).schedule();
+        assertTrue(cpmg.classWorkspaceBytes() < Schedule.MAX_WORKSPACE_BYTES / 50);
+        assertTrue(cpmg.stateUpdates < Schedule.MAX_STATE_UPDATES / 100);
+    }
+
+    @Test
     void classCountsStayWithinTheNumberOfPeriodsBetween() {
         Schedule s = TestTrains.cpmg(5, 10, 120).schedule();
         for (int e = 0; e < 5; e++) {

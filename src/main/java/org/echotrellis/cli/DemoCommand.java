@@ -21,6 +21,7 @@ public final class DemoCommand implements Callable<Integer> {
     static final List<DemoSection> SECTIONS = List.of(
             new FoundationDemo(),
             new PathwayDemo(),
+            new FitDemo(),
             new SpectrumDemo(),
             new DesignDemo());
 

@@ -38,6 +38,7 @@ public final class T2Fit implements VoxelKernel {
             throw new IllegalArgumentException("decay has " + y.length + " echoes, the protocol " + n);
         }
         double[] out = new double[factory.outputs.size()];
+        java.util.Arrays.fill(monoOut, Double.NaN);
         VoxelStatus s = VoxelStatus.INVALID_INPUT;
         boolean finite = true;
         for (double v : y) {
@@ -52,6 +53,36 @@ public final class T2Fit implements VoxelKernel {
         return new T2Estimate(get(out, names, "t2_ms"), get(out, names, "t2_se_ms"), get(out, names, "b1_scale"),
                 get(out, names, "b1_se"), get(out, names, "amplitude"), get(out, names, "residual_rms"), s,
                 factory.model == FitModel.MONO ? get(out, names, "t2_ms") : get(out, names, "mono_t2_ms"));
+    }
+
+    /**
+     * The fitted model curves of the last {@link #estimate}: the EPG curve (NaN for the mono
+     * model) and the mono-exponential curve (NaN without it), one value per echo.
+     *
+     * @param e the estimate returned by the last call
+     * @return {epg, mono}
+     */
+    public double[][] curves(T2Estimate e) {
+        FitSettings s = factory.settings;
+        int n = s.train().echoes();
+        double[] epgCurve = new double[n];
+        double[] monoCurve = new double[n];
+        java.util.Arrays.fill(epgCurve, Double.NaN);
+        java.util.Arrays.fill(monoCurve, Double.NaN);
+        if (epg != null && e.status().fitted()) {
+            EpgSignal sig = new EpgSignal(s);
+            sig.evaluate(e.t2Ms(), e.b1Scale(), epgCurve, new double[n], new double[n]);
+            for (int i = 0; i < n; i++) {
+                epgCurve[i] *= e.amplitude();
+            }
+        }
+        if (mono != null && Double.isFinite(monoOut[MonoFitter.T2])) {
+            for (int i = 0; i < n; i++) {
+                monoCurve[i] = monoOut[MonoFitter.AMPLITUDE] * Math.exp(-s.train().echoTimeMs(i + 1) / monoOut[MonoFitter.T2])
+                        + monoOut[MonoFitter.OFFSET];
+            }
+        }
+        return new double[][] {epgCurve, monoCurve};
     }
 
     private static double get(double[] out, List<String> names, String key) {

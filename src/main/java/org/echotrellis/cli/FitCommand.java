@@ -1,0 +1,191 @@
+package org.echotrellis.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+
+import org.echotrellis.InputException;
+import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.fit.FitModel;
+import org.echotrellis.fit.FitSettings;
+import org.echotrellis.fit.SliceProfile;
+import org.echotrellis.fit.SliceProfiles;
+import org.echotrellis.fit.T2Fit;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code fit}: stimulated-echo-corrected T2 (and B1) from decay tables or NIfTI volumes. */
+@Command(name = "fit", mixinStandardHelpOptions = true,
+        description = {"Fit T2 and B1 to multi-echo spin-echo decays with the protocol's EPG echo model "
+                + "(stimulated echoes included), or with a mono-exponential for comparison.",
+            "DATA is a CSV decay table (first column echo time in ms, one decay per further column) "
+                + "or a 4-D NIfTI-1 series (.nii/.nii.gz, x, y, z, echo)."},
+        footer = {"", "Examples:",
+            "  echotrellis fit decays.csv --protocol sequences/brain-mwi-32.yaml --format json",
+            "  echotrellis fit series.nii.gz --protocol sequences/knee-t2-16.yaml --mask mask.nii.gz --out t2maps --compare-mono",
+            "  echotrellis fit series.nii.gz --protocol p.yaml --slice-profile sinc:4 --noise-sigma auto --mask m.nii",
+            "",
+            "Volumes write t2_ms, t2_se_ms, b1_scale, b1_se, amplitude, residual_rms, status (and mono_t2_ms)",
+            "as .nii.gz maps, PNG previews and summary.json into --out. Status codes: 0 outside mask, 1 ok,",
+            "2 hit bound, 3 low signal, 4 invalid input, 5 not converged.",
+            "B1 is reported folded (refocusing angle <= 180 deg) for constant trains: B1 = 1 + x and 1 - x",
+            "give the same magnitude train. Near B1 = 1 the B1 estimate is weak; see b1_se."})
+public final class FitCommand implements Callable<Integer> {
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "DATA", description = "CSV decay table or NIfTI-1 series (.nii, .nii.gz).")
+    Path data;
+
+    @Option(names = "--protocol", required = true, paramLabel = "FILE", description = "Protocol file of the acquisition (.yaml/.json).")
+    Path protocol;
+
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "epg", description = "epg or mono (default: ${DEFAULT-VALUE}).")
+    FitModel model;
+
+    @Option(names = "--mask", paramLabel = "FILE", description = "3-D NIfTI mask: voxels with value 0 are skipped.")
+    Path mask;
+
+    @Option(names = "--b1-map", paramLabel = "FILE", description = "3-D NIfTI B1 map (flip-angle scale): B1 is fixed per voxel.")
+    Path b1Map;
+
+    @Option(names = "--slice-profile", paramLabel = "P", defaultValue = "none",
+            description = "none, sinc:TBW, gauss:TBW or a pulse-envelope file (one amplitude per line); Bloch-simulated (default: ${DEFAULT-VALUE}).")
+    String sliceProfile;
+
+    @Option(names = "--slice-positions", paramLabel = "N", defaultValue = "16",
+            description = "Positions across the half slice for --slice-profile (default: ${DEFAULT-VALUE}).")
+    int slicePositions;
+
+    @Option(names = "--refocus-slice-ratio", paramLabel = "R", defaultValue = "1.0",
+            description = "Refocusing-to-excitation slice thickness ratio (default: ${DEFAULT-VALUE}).")
+    double refocusRatio;
+
+    @Option(names = "--noise-sigma", paramLabel = "S",
+            description = "Channel noise sigma (signal units) for the Rician mean model, or 'auto' (volumes: from outside the mask).")
+    String noiseSigma;
+
+    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 in ms (default: ${DEFAULT-VALUE}).")
+    double t1Ms;
+
+    @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound (default: ${DEFAULT-VALUE}).")
+    double t2MinMs;
+
+    @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "5000", description = "Upper T2 bound (default: ${DEFAULT-VALUE}).")
+    double t2MaxMs;
+
+    @Option(names = "--b1-min", paramLabel = "SCALE", defaultValue = "0.3", description = "Lower B1 bound (default: ${DEFAULT-VALUE}).")
+    double b1Min;
+
+    @Option(names = "--b1-max", paramLabel = "SCALE", defaultValue = "1.7", description = "Upper B1 bound before folding (default: ${DEFAULT-VALUE}).")
+    double b1Max;
+
+    @Option(names = "--mono-offset", description = "Fit a constant offset in the mono-exponential model.")
+    boolean monoOffset;
+
+    @Option(names = "--mono-skip-first", description = "Drop the first echo in the mono-exponential model.")
+    boolean monoSkipFirst;
+
+    @Option(names = "--compare-mono", description = "Also fit the mono-exponential model (map mono_t2_ms).")
+    boolean compareMono;
+
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table", description = "CSV input: table or json on stdout (default: ${DEFAULT-VALUE}).")
+    Format format;
+
+    @Option(names = "--out", paramLabel = "DIR", defaultValue = "t2-fit", description = "Output directory (default: ${DEFAULT-VALUE}).")
+    Path out;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads for volumes (default: all cores).")
+    Integer threads;
+
+    @Option(names = "--force", description = "Overwrite existing output files.")
+    boolean force;
+
+    @Option(names = "--quiet", description = "No progress bar.")
+    boolean quiet;
+
+    /** Stdout formats for decay tables. */
+    enum Format { table, json }
+
+    @Override
+    public Integer call() {
+        Protocol p = ProtocolReader.read(protocol);
+        CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
+                + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
+        SliceProfile profile = SliceProfiles.parse(sliceProfile, train, slicePositions, refocusRatio);
+        FitSettings settings = new FitSettings(train, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, true, Double.NaN, profile,
+                monoOffset, monoSkipFirst);
+        String name = data.getFileName().toString().toLowerCase(Locale.ROOT);
+        boolean volume = name.endsWith(".nii") || name.endsWith(".nii.gz");
+        PrintWriter o = spec.commandLine().getOut();
+        if (!volume) {
+            if (mask != null || b1Map != null) {
+                throw new InputException("--mask and --b1-map apply to NIfTI volumes, not to the decay table " + data);
+            }
+            double sigma = tableSigma();
+            T2Fit.Factory f = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, true);
+            new FitTableRun(f, p, out, force).run(data, format == Format.json, o);
+            return 0;
+        }
+        int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
+        Map<String, Object> info = new LinkedHashMap<>();
+        info.put("data", data.toString());
+        info.put("protocol", p.name());
+        info.put("model", model.name().toLowerCase(Locale.ROOT));
+        info.put("echoes", train.echoes());
+        info.put("echo_spacing_ms", train.echoSpacingMs());
+        info.put("t1_ms", t1Ms);
+        info.put("t2_bounds_ms", List.of(t2MinMs, t2MaxMs));
+        info.put("b1_bounds", List.of(b1Min, settings.effectiveB1Max()));
+        info.put("b1_folded", settings.foldActive());
+        info.put("slice_profile", profile.label());
+        info.put("slice_positions", profile.positions());
+        info.put("b1_map", b1Map == null ? null : b1Map.toString());
+        info.put("mask", mask == null ? null : mask.toString());
+        info.put("threads", n);
+        new FitVolumeRun(settings, model, compareMono, noiseSigma, out, force, quiet)
+                .run(data, mask, b1Map, n, info, o, spec.commandLine().getErr());
+        return 0;
+    }
+
+    /** Parses --noise-sigma for tables (no 'auto'). */
+    private double tableSigma() {
+        if (noiseSigma == null) {
+            return Double.NaN;
+        }
+        if (noiseSigma.equals("auto")) {
+            throw new InputException("--noise-sigma auto needs a NIfTI volume with --mask; give a number for decay tables");
+        }
+        return parseSigma(noiseSigma);
+    }
+
+    /**
+     * @param text option value
+     * @return σ &gt; 0
+     */
+    static double parseSigma(String text) {
+        try {
+            double v = Double.parseDouble(text);
+            if (!(v > 0) || !Double.isFinite(v)) {
+                throw new NumberFormatException();
+            }
+            return v;
+        } catch (NumberFormatException e) {
+            throw new InputException("--noise-sigma must be a number > 0 or 'auto', got " + text);
+        }
+    }
+}

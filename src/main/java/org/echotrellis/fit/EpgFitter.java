@@ -38,6 +38,7 @@ final class EpgFitter {
     private final double[] gT;
     private final double[] gB;
     private final double[] start = new double[2];
+    private final double[] scan;
     private final SmallLeastSquares lmFree;
     private final SmallLeastSquares lmFixed;
     private final SmallLeastSquares lmRiceFree;
@@ -69,6 +70,7 @@ final class EpgFitter {
         this.signal = new EpgSignal(settings);
         this.dictionary = dictionary;
         this.n = settings.train().echoes();
+        scan = new double[dictionary.size()];
         g = new double[n];
         gT = new double[n];
         gB = new double[n];
@@ -109,7 +111,7 @@ final class EpgFitter {
         y = data;
         off = offset;
         fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : Math.max(settings.b1Min(), Math.min(settings.effectiveB1Max(), b1Fixed));
-        dictionary.best(data, offset, fixedB1, start);
+        dictionary.best(data, offset, fixedB1, scan, start);
         boolean free = Double.isNaN(fixedB1);
         double cost;
         SmallLeastSquares lm;

@@ -37,6 +37,7 @@ final class SmallLeastSquares {
     private final boolean[] held;
     private int iterations;
     private boolean converged;
+    private double noiseTol = 1e-4;
 
     /**
      * @param parameters number of parameters (1..4)
@@ -55,6 +56,14 @@ final class SmallLeastSquares {
         a = new double[p * p];
         step = new double[p];
         held = new boolean[p];
+    }
+
+    /**
+     * @param fraction stop when the predicted cost decrease of a step is below this fraction of
+     *        the residual variance Σr²/(m − p) (default 1e-4; 0 disables the test)
+     */
+    void noiseTolerance(double fraction) {
+        this.noiseTol = fraction;
     }
 
     /** @return iterations (accepted or rejected steps) of the last solve */
@@ -104,6 +113,16 @@ final class SmallLeastSquares {
             iterations++;
             if (!dampedStep(lambda, x, lo, hi)) {
                 converged = true;  // no admissible direction: at a bounded stationary point
+                break;
+            }
+            // Stop when the Gauss–Newton model predicts a cost decrease below a tiny fraction of
+            // the residual variance: the remaining step is then far below the standard errors.
+            double predicted = 0;
+            for (int k = 0; k < p; k++) {
+                predicted += step[k] * g[k];
+            }
+            if (predicted <= noiseTol * cost / Math.max(1, m - p)) {
+                converged = true;
                 break;
             }
             boolean small = true;

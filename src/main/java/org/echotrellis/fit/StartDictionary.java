@@ -15,6 +15,7 @@ final class StartDictionary {
     private final double[] t2;
     private final double[] b1;
     private final double[] atoms;  // [(ib*nT2 + it)*echoes + n]
+    private final double[] byEcho; // the same unit atoms, [n*size() + ib*nT2 + it], for the scan
     private final double[] atomsT; // derivative with respect to ln T2, same layout and scale
     private final double[] atomsB; // derivative with respect to B1
     private final double lnT2Lo;
@@ -42,6 +43,7 @@ final class StartDictionary {
         }
         atoms = new double[nT2 * nB1 * echoes];
         atomsT = new double[atoms.length];
+        byEcho = new double[atoms.length];
         atomsB = new double[atoms.length];
         EpgSignal sig = new EpgSignal(s);
         double[] g = new double[echoes];
@@ -58,6 +60,7 @@ final class StartDictionary {
                 int o = (j * nT2 + i) * echoes;
                 for (int n = 0; n < echoes; n++) {
                     atoms[o + n] = g[n] * inv;
+                    byEcho[n * nT2 * nB1 + j * nT2 + i] = g[n] * inv;
                     atomsT[o + n] = d1[n] * inv;
                     atomsB[o + n] = d2[n] * inv;
                 }
@@ -76,10 +79,11 @@ final class StartDictionary {
      * @param y data at y[off .. off+echoes); not modified
      * @param off offset
      * @param fixedB1 B1 to use (the nearest grid row is searched), or NaN to search all rows
+     * @param work scratch of length ≥ {@link #size()}; modified
      * @param start receives {T2, B1}: the best atom refined by one Gauss–Newton step (kept
      *        within the bounds and within one grid step of the atom); modified
      */
-    void best(double[] y, int off, double fixedB1, double[] start) {
+    void best(double[] y, int off, double fixedB1, double[] work, double[] start) {
         int j0 = 0;
         int j1 = nB1;
         if (!Double.isNaN(fixedB1)) {
@@ -92,23 +96,30 @@ final class StartDictionary {
             j0 = j;
             j1 = j + 1;
         }
-        double bestScore = -1;
-        int bi = 0;
-        int bj = j0;
-        for (int j = j0; j < j1; j++) {
-            for (int i = 0; i < nT2; i++) {
-                int o = (j * nT2 + i) * echoes;
-                double dot = 0;
-                for (int n = 0; n < echoes; n++) {
-                    dot += atoms[o + n] * y[off + n];
-                }
-                if (dot > 0 && dot * dot > bestScore) {
-                    bestScore = dot * dot;
-                    bi = i;
-                    bj = j;
-                }
+        // Scan with the atoms innermost (no reduction in the inner loop, so it vectorises):
+        // work[a] = ĝ_a·y, then the largest (ĝ_a·y)² with ĝ_a·y > 0.
+        final int size = nT2 * nB1;
+        final int a0 = j0 * nT2;
+        final int a1 = j1 * nT2;
+        java.util.Arrays.fill(work, a0, a1, 0.0);
+        for (int n = 0; n < echoes; n++) {
+            final double yn = y[off + n];
+            final int base = n * size;
+            for (int a = a0; a < a1; a++) {
+                work[a] += byEcho[base + a] * yn;
             }
         }
+        double bestScore = -1;
+        int best = a0;
+        for (int a = a0; a < a1; a++) {
+            double d = work[a];
+            if (d > 0 && d * d > bestScore) {
+                bestScore = d * d;
+                best = a;
+            }
+        }
+        int bi = best % nT2;
+        int bj = best / nT2;
         start[0] = t2[bi];
         start[1] = Double.isNaN(fixedB1) ? b1[bj] : fixedB1;
         if (bestScore > 0) {

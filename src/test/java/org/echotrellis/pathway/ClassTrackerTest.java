@@ -110,6 +110,23 @@ class ClassTrackerTest {
     }
 
     @Test
+    void cpmgSecondEchoClassesCarryTheirOwnRelaxation() {
+        double alpha = 120;
+        double esp = 10;
+        double t1 = 1000;
+        double t2 = 100;
+        ClassDecomposition d = new ClassTracker().decompose(TestTrains.cpmg(3, esp, alpha).schedule(), t1, t2, 1.0);
+        double r = Math.toRadians(alpha);
+        // Hennig 1988 pathway rules with relaxation: the double spin echo is transverse for 2 ESP,
+        // the stimulated echo transverse for ESP and longitudinal for one ESP
+        double se = Math.pow(Math.sin(r / 2), 4) * Math.exp(-2 * esp / t2);
+        double ste = 0.5 * Math.pow(Math.sin(r), 2) * Math.exp(-esp / t2) * Math.exp(-esp / t1);
+        assertEquals(se, d.classRe(1, 0), TOL);
+        assertEquals(ste, d.classRe(1, 1), TOL);
+        assertEquals(ste / (se + ste), d.stimulatedShare(1), 1e-12);
+    }
+
+    @Test
     void idealRefocusingHasNoStimulatedShare() {
         ClassDecomposition d = new ClassTracker().decompose(TestTrains.cpmg(32, 9, 180).schedule(), 1200, 40, 1.0);
         for (int e = 0; e < d.echoCount(); e++) {

@@ -7,8 +7,8 @@ import org.echotrellis.Checks;
 
 /**
  * A smooth refocusing schedule from a few knots: K knot flips at echo positions spread evenly
- * from echo 1 to echo N, joined by a natural cubic spline (linear for K = 2) and clamped to the
- * flip bounds.
+ * from echo 1 to the last echo it spans, joined by a natural cubic spline (linear for K = 2) and
+ * clamped to the flip bounds.
  */
 public final class FlipSpline {
     private final double[] positions;
@@ -16,7 +16,7 @@ public final class FlipSpline {
 
     /**
      * @param knots number of knots, 2 to 32 and at most the echo count
-     * @param echoes number of echoes
+     * @param echoes number of echoes the spline spans, from echo 1
      */
     public FlipSpline(int knots, int echoes) {
         Checks.inRange("--knots", knots, 2, Math.max(2, Math.min(32, echoes)), null);
@@ -25,6 +25,11 @@ public final class FlipSpline {
         for (int j = 0; j < knots; j++) {
             positions[j] = 1 + j * (echoes - 1.0) / (knots - 1);
         }
+    }
+
+    /** @return number of echoes the spline spans (from echo 1) */
+    public int echoes() {
+        return echoes;
     }
 
     /** @return number of knots */
@@ -41,7 +46,7 @@ public final class FlipSpline {
      * @param knotFlipsDeg flip at each knot (not modified)
      * @param minDeg lower clamp
      * @param maxDeg upper clamp
-     * @param out receives one flip per echo (modified)
+     * @param out receives one flip for each of the first {@link #echoes()} echoes (modified)
      */
     public void evaluate(double[] knotFlipsDeg, double minDeg, double maxDeg, double[] out) {
         if (echoes == 1) {

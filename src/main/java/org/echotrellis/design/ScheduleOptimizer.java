@@ -16,7 +16,8 @@ import org.echotrellis.InputException;
 
 /**
  * Budgeted refocusing design: maximises an {@link Objective} over a smooth schedule of a few
- * spline knots ({@link FlipSpline}) subject to relative SAR ≤ budget and B1+rms ≤ limit, with
+ * spline knots ({@link FlipSpline}, spread over the echoes up to the last one the objective reads;
+ * later flips taper linearly to the lowest flip, which leaves the objective unchanged) subject to relative SAR ≤ budget and B1+rms ≤ limit, with
  * Powell's BOBYQA (Powell, "The BOBYQA algorithm for bound constrained optimization without
  * derivatives", Cambridge NA Report 2009/06) from Commons Math.
  *
@@ -66,7 +67,8 @@ public final class ScheduleOptimizer {
         java.util.Arrays.fill(work, constFlip);
         double constValue = evaluator.value(objective, problem, work);
 
-        FlipSpline spline = new FlipSpline(Math.min(knots, Math.max(2, n)), n);
+        int span = Math.min(n, Math.max(2, objective.lastEcho()));
+        FlipSpline spline = new FlipSpline(Math.min(knots, span), span);
         int k = spline.knots();
         double[] bestKnots = filled(k, constFlip);
         double bestValue = constValue;
@@ -114,6 +116,7 @@ public final class ScheduleOptimizer {
         double lo = p.minFlipDeg();
         double hi = p.maxFlipDeg();
         spline.evaluate(knotsDeg, lo, hi, out);
+        taper(out, spline.echoes(), lo);
         if (limits.allows(rf, p.excitationFlipDeg(), out)) {
             return;
         }
@@ -130,6 +133,22 @@ public final class ScheduleOptimizer {
             }
         }
         scaleInto(raw, sLo, lo, hi, out);
+    }
+
+    /**
+     * Echoes after the last one the objective reads do not change it (echo n depends only on
+     * pulses 1..n), so their flips fall linearly from the spline's last value to the lowest flip:
+     * the objective is unchanged and the RF goes to the echoes that count.
+     */
+    private static void taper(double[] flips, int span, double lo) {
+        int n = flips.length;
+        if (span >= n) {
+            return;
+        }
+        double last = flips[span - 1];
+        for (int i = span; i < n; i++) {
+            flips[i] = last + (lo - last) * (i - span + 1.0) / (n - span);
+        }
     }
 
     private double bestConstant(DesignProblem p, Objective o, ExposureLimits limits, RfExposure rf, double[] work) {

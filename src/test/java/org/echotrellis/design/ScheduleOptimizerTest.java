@@ -65,6 +65,24 @@ class ScheduleOptimizerTest {
     }
 
     @Test
+    void flipsAfterTheObjectiveEchoTaperToTheLowestFlip() {
+        ExposureLimits limits = new ExposureLimits(0.5, Double.POSITIVE_INFINITY);
+        OptimizedSchedule r = new ScheduleOptimizer().optimize(FSE80, new Objective.SignalAt(20), limits, RF, 6, 2000);
+        double[] f = r.flipsDeg();
+        assertEquals(20, f[79], 1e-12); // --min-flip-deg of FSE80
+        for (int i = 20; i < 80; i++) {
+            assertEquals(f[19] + (20 - f[19]) * (i - 19.0) / 60, f[i], 1e-9, "echo " + (i + 1));
+        }
+        // causality: echo 20 depends only on pulses 1..20, so any later flips leave the objective unchanged
+        double[] other = f.clone();
+        java.util.Arrays.fill(other, 20, 80, 180);
+        double[] a = new CpmgEngine(1).echoes(CpmgTrain.of(80, 4, 90, f), 1084, 69, 1);
+        double[] b = new CpmgEngine(1).echoes(CpmgTrain.of(80, 4, 90, other), 1084, 69, 1);
+        assertEquals(a[19], b[19], 1e-15);
+        assertEquals(r.objective(), Math.abs(a[19]), 1e-12);
+    }
+
+    @Test
     void impossibleLimitsAreRefused() {
         DesignProblem p = FSE80.withFlipBounds(90, 180);
         // all flips at 90° already give (90/180)² = 0.25 > 0.1

@@ -16,13 +16,11 @@ import org.echotrellis.plot.ChartFiles;
 import org.echotrellis.plot.ClassContributionChart;
 import org.echotrellis.plot.PhaseGraphDiagram;
 import org.echotrellis.sequence.Protocol;
-import org.echotrellis.sequence.ProtocolReader;
 import org.echotrellis.sequence.Tissue;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /** {@code pathways}: which coherence pathways form each echo, the stimulated share, the phase graph. */
@@ -45,17 +43,8 @@ public final class PathwaysCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
-    Path file;
-
-    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms.")
-    Double t1Ms;
-
-    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms.")
-    Double t2Ms;
-
-    @Option(names = "--b1", paramLabel = "SCALE", description = "Override the B1 (flip-angle) scale, e.g. 0.8.")
-    Double b1;
+    @Mixin
+    ProtocolInput input;
 
     @Option(names = "--echo", paramLabel = "N", description = "List the largest pathways of echo N (1-based).")
     Integer echo;
@@ -107,16 +96,9 @@ public final class PathwaysCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        Protocol p = ProtocolReader.read(file);
+        Protocol p = input.load();
         Tissue t = p.tissue();
-        if (t1Ms != null) {
-            t = t.withT1Ms(CliChecks.positiveOrInf("--t1-ms", t1Ms));
-        }
-        if (t2Ms != null) {
-            t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
-        }
-        double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
-        p = p.withTissue(t).withB1Scale(scale);
+        double scale = p.b1Scale();
         checkOptions(p);
         ClassDecomposition d = PathwayAnalysis.classes(p);
         TopPathways tp = null;
@@ -152,13 +134,13 @@ public final class PathwaysCommand implements Callable<Integer> {
     private void checkOptions(Protocol p) {
         int n = p.echoCount();
         if (n == 0) {
-            throw new InputException(file + ": the protocol has no echo events; nothing to analyse");
+            throw new InputException(input.file + ": the protocol has no echo events; nothing to analyse");
         }
         if (top != null && echo == null) {
             throw new InputException("--top needs --echo N (an echo within [1, " + n + "])");
         }
         if (echo != null) {
-            Checks.inRange("--echo", echo, 1, n, file.toString() + " has " + n + " echoes");
+            Checks.inRange("--echo", echo, 1, n, input.file + " has " + n + " echoes");
         }
         if (top != null) {
             Checks.inRange("--top", top, 1, 10_000, null);

@@ -14,7 +14,6 @@ import org.echotrellis.plot.ChartFiles;
 import org.echotrellis.plot.EchoPlot;
 import org.echotrellis.sequence.EchoTrain;
 import org.echotrellis.sequence.Protocol;
-import org.echotrellis.sequence.ProtocolReader;
 import org.echotrellis.sequence.Simulator;
 import org.echotrellis.sequence.Sweep;
 import org.echotrellis.sequence.Tissue;
@@ -23,7 +22,6 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /** {@code simulate}: echo amplitudes of a protocol, or a dictionary over a (T1, T2, B1) grid. */
@@ -40,17 +38,8 @@ public final class SimulateCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
-    Path file;
-
-    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms.")
-    Double t1Ms;
-
-    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms.")
-    Double t2Ms;
-
-    @Option(names = "--b1", paramLabel = "SCALE", description = "Override the B1 (flip-angle) scale, e.g. 0.8.")
-    Double b1;
+    @Mixin
+    ProtocolInput input;
 
     @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
             description = "Output format: table, csv or json (default: ${DEFAULT-VALUE}).")
@@ -88,16 +77,9 @@ public final class SimulateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
-        Protocol p = ProtocolReader.read(file);
+        Protocol p = input.load();
         Tissue t = p.tissue();
-        if (t1Ms != null) {
-            t = t.withT1Ms(CliChecks.positiveOrInf("--t1-ms", t1Ms));
-        }
-        if (t2Ms != null) {
-            t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
-        }
-        double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
-        p = p.withTissue(t).withB1Scale(scale);
+        double scale = p.b1Scale();
         PrintWriter o = spec.commandLine().getOut();
         if (!sweeps.isEmpty()) {
             return sweep(p, o);

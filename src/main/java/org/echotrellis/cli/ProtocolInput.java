@@ -1,0 +1,40 @@
+package org.echotrellis.cli;
+
+import java.nio.file.Path;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolReader;
+import org.echotrellis.sequence.Tissue;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/**
+ * The protocol file argument with the tissue and B1 overrides shared by {@code simulate} and
+ * {@code pathways}.
+ */
+public final class ProtocolInput {
+    @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
+    Path file;
+
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms.")
+    Double t1Ms;
+
+    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms.")
+    Double t2Ms;
+
+    @Option(names = "--b1", paramLabel = "SCALE", description = "Override the B1 (flip-angle) scale, e.g. 0.8.")
+    Double b1;
+
+    /** @return the protocol read from FILE with the overrides applied */
+    public Protocol load() {
+        Protocol p = ProtocolReader.read(file);
+        Tissue t = p.tissue();
+        if (t1Ms != null) {
+            t = t.withT1Ms(CliChecks.positiveOrInf("--t1-ms", t1Ms));
+        }
+        if (t2Ms != null) {
+            t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
+        }
+        double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
+        return p.withTissue(t).withB1Scale(scale);
+    }
+}

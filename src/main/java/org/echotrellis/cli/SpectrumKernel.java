@@ -57,7 +57,7 @@ final class SpectrumKernel implements VoxelKernel {
             List<String> names = new ArrayList<>(SpectrumNames.scalars(options));
             double[] t2 = options.grid().t2Ms();
             for (int j = 0; j < t2.length; j++) {
-                names.add("bin_" + j);
+                names.add(SpectrumNames.binOutput(j, t2[j]));
             }
             this.outputs = List.copyOf(names);
         }

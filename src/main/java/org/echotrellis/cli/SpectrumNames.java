@@ -37,7 +37,12 @@ final class SpectrumNames {
         return s.replace('.', 'p');
     }
 
-    /** @return the short label of a bin, e.g. "t2_10.0ms" */
+    /** @return the pipeline output name of bin j (one 3-D map, assembled into spectrum.nii.gz) */
+    static String binOutput(int j, double t2Ms) {
+        return String.format(java.util.Locale.ROOT, "spectrum_%03d_%s", j, bin(t2Ms));
+    }
+
+    /** @return the short label of a bin, e.g. "t2_10.00ms" */
     static String bin(double t2Ms) {
         return String.format(java.util.Locale.ROOT, "t2_%.4gms", t2Ms);
     }

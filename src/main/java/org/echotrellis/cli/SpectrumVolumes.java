@@ -63,8 +63,9 @@ final class SpectrumVolumes {
         int nvox = nx * ny * nz;
         int bins = o.grid().bins();
         float[] spectrum = new float[nvox * bins];
+        double[] t2 = o.grid().t2Ms();
         for (int j = 0; j < bins; j++) {
-            System.arraycopy(r.map("bin_" + j), 0, spectrum, j * nvox, nvox);
+            System.arraycopy(r.map(SpectrumNames.binOutput(j, t2[j])), 0, spectrum, j * nvox, nvox);
         }
         Nifti.write(out.resolve("spectrum.nii.gz"), h.withVolumes(bins), spectrum, force);
         List<String> scalars = SpectrumNames.scalars(o);

@@ -151,7 +151,7 @@ public final class SpectrumFitter {
             for (int k = 0; k < search.count(); k++) {
                 double[] ak = cache.searchBasis(k);
                 Gram.project(ak, m, n, decay, offset, b);
-                converged &= nnls.solve(cache.searchGram(k), b, n, 0, false, x0) == Nnls.CONVERGED;
+                converged &= nnls.solve(cache.searchGram(k), b, n, 0, k > 0, x0) == Nnls.CONVERGED;
                 chi2k[k] = Gram.residual(ak, m, n, x0, decay, offset, fitted);
             }
             double step = (search.hiDeg() - search.loDeg()) / (search.count() - 1);

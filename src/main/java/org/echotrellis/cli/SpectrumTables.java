@@ -37,6 +37,13 @@ final class SpectrumTables {
             if (Files.exists(out) && !Files.isDirectory(out)) {
                 throw new InputException("--out " + out + " exists and is not a directory");
             }
+            if (!force) {
+                for (String f : new String[] {"spectra.csv", "spectra.json", "spectrum.png", "spectrum.svg"}) {
+                    if (Files.exists(out.resolve(f))) {
+                        throw new InputException(out.resolve(f) + " exists; use --force to overwrite");
+                    }
+                }
+            }
             Files.createDirectories(out);
             AtomicFiles.writeString(out.resolve("spectra.csv"), csv(fits, o), force);
             AtomicFiles.writeString(out.resolve("spectra.json"), json(fits, settings), force);

@@ -45,6 +45,7 @@ final class SpectrumVolumes {
                 throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
                         + cache.echoes());
             }
+            refuseExisting(out, o, force);
             Files.createDirectories(out);
             VolumeResult r = VolumePipeline.run(job, new SpectrumKernel.Factory(cache, o), progress);
             write(r, o, out, force, settings);
@@ -88,6 +89,24 @@ final class SpectrumVolumes {
         Map<String, Object> s = new LinkedHashMap<>(settings);
         s.put("outputs", outputs(scalars));
         RunSummary.write(out.resolve("summary.json"), r, s, force);
+    }
+
+    /** Fails before any work if an output exists and --force is not given (same message as the writer). */
+    static void refuseExisting(Path out, SpectrumOptions o, boolean force) {
+        if (force) {
+            return;
+        }
+        List<String> names = new ArrayList<>(List.of("spectrum.nii.gz", "status.nii.gz", "summary.json"));
+        for (String n : SpectrumNames.scalars(o)) {
+            names.add(n + ".nii.gz");
+            names.add(n + ".png");
+        }
+        for (String n : names) {
+            Path f = out.resolve(n);
+            if (Files.exists(f)) {
+                throw new InputException(f + " exists; use --force to overwrite");
+            }
+        }
     }
 
     private static List<String> outputs(List<String> scalars) {

@@ -153,6 +153,18 @@ class SpectrumCommandTest {
             // amplitudes in data units: Σ s ≈ extrapolated signal at t = 0, here 1000 (sin 90° = 1)
             assertEquals(1000, sum, 30, "spectrum sum voxel " + v);
         }
+        long before = Files.getLastModifiedTime(out.resolve("spectrum.nii.gz")).toMillis();
+        CliRun again = CliRun.of("spectrum", img.toString(), "--protocol", PROTOCOL, "--out", out.toString(), "--quiet");
+        assertEquals(2, again.code());
+        assertTrue(again.err().contains("exists; use --force"), again.err());
+        assertEquals(before, Files.getLastModifiedTime(out.resolve("spectrum.nii.gz")).toMillis());
+        CliRun forced = CliRun.of("spectrum", img.toString(), "--protocol", PROTOCOL, "--out", out.toString(),
+                "--mask", m.toString(), "--quiet", "--force", "--refocus-deg", "160");
+        assertEquals(0, forced.code(), forced.err());
+        CliRun wrongEchoes = CliRun.of("spectrum", img.toString(), "--protocol", "sequences/knee-t2-16.yaml",
+                "--out", tmp.resolve("knee").toString(), "--quiet");
+        assertEquals(2, wrongEchoes.code());
+        assertTrue(wrongEchoes.err().contains("echoes"), wrongEchoes.err());
         JsonNode summary = Json.MAPPER.readTree(out.resolve("summary.json").toFile());
         assertEquals(23, summary.get("voxels_processed").asInt());
         assertEquals(40, summary.get("settings").get("t2_ms").size());

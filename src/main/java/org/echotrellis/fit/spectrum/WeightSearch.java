@@ -12,7 +12,7 @@ package org.echotrellis.fit.spectrum;
  *   |χ²(μ)/χ²(0) − f| ≤ {@value #RATIO_TOL}.</li>
  *   <li>GCV (Golub, Heath &amp; Wahba, Technometrics 21:215, 1979): μ minimising
  *   V(μ) = m·‖y − A·s_μ‖² / (m − df(μ))², df = trace of the influence matrix on the passive set P,
- *   trace(A_P(A_PᵀA_P + μI)⁻¹A_Pᵀ) = p − μ·trace((G_PP + μI)⁻¹). A decade grid over log μ, then a
+ *   trace(A_P(A_PᵀA_P + μI)⁻¹A_Pᵀ) = p − μ·trace((G_PP + μI)⁻¹). A scan over log μ (four points per decade, 10 decades), then a
  *   golden-section search around the best grid point.</li>
  * </ul>
  * Successive trials warm-start NNLS from the previous solution. Not thread-safe.
@@ -28,6 +28,8 @@ final class WeightSearch {
     private static final double LOWEST = 1e-14;
     private static final double HIGHEST = 1e8;
     private static final double GOLDEN = (Math.sqrt(5) - 1) / 2;
+    /** GCV scan points per decade of μ (V is not smooth in μ: the NNLS active set changes). */
+    private static final int GCV_PER_DECADE = 4;
 
     private final Nnls nnls;
     private final int m;
@@ -189,17 +191,18 @@ final class WeightSearch {
         System.arraycopy(x0, 0, best, 0, n);
         System.arraycopy(x0, 0, x, 0, n);
         double u0 = Math.log(1e-8 * s);
-        for (int k = 0; k <= 10; k++) {
-            gcvAt(u0 + k * LN10, x);
+        double h = LN10 / GCV_PER_DECADE;
+        for (int k = 0; k <= 10 * GCV_PER_DECADE; k++) {
+            gcvAt(u0 + k * h, x);
         }
         if (bestU > Double.NEGATIVE_INFINITY) {
-            double lo = bestU - LN10;
-            double hi = bestU + LN10;
+            double lo = bestU - h;
+            double hi = bestU + h;
             double c = hi - GOLDEN * (hi - lo);
             double d = lo + GOLDEN * (hi - lo);
             double fc = gcvAt(c, x);
             double fd = gcvAt(d, x);
-            for (int it = 0; it < 14; it++) {
+            for (int it = 0; it < 12; it++) {
                 if (fc < fd) {
                     hi = d;
                     d = c;

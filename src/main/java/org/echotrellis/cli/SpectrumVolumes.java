@@ -148,6 +148,7 @@ final class SpectrumVolumes {
             case "refocus_deg": return "angle (deg)";
             case "chi2": return "χ² (signal²)";
             case "regularisation_weight": return "μ";
+            case "snr": return "SNR (largest echo / σ)";
             default: return name;
         }
     }

@@ -43,7 +43,10 @@ public record FractionWindow(double loMs, double hiMs) {
         }
     }
 
-    /** @return true when {@code t2Ms} lies in the window (edges inclusive) */
+    /**
+     * @param t2Ms a T2 in ms
+     * @return true when {@code t2Ms} lies in the window (edges inclusive)
+     */
     public boolean contains(double t2Ms) {
         return t2Ms >= loMs * (1 - EDGE) && t2Ms <= hiMs * (1 + EDGE);
     }

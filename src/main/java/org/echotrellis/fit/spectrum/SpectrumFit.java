@@ -37,11 +37,13 @@ public record SpectrumFit(String name, double[] t2Ms, double[] amplitude, double
         windows = List.copyOf(windows);
     }
 
+    /** @return a copy of the T2 grid in ms */
     @Override
     public double[] t2Ms() {
         return t2Ms.clone();
     }
 
+    /** @return a copy of the spectrum amplitudes */
     @Override
     public double[] amplitude() {
         return amplitude.clone();

@@ -33,32 +33,50 @@ public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularis
         }
     }
 
-    /** @return a copy with another grid */
+    /**
+     * @param g the T2 grid
+     * @return a copy with another grid
+     */
     public SpectrumOptions withGrid(T2Grid g) {
         return new SpectrumOptions(g, t1Ms, regularisation, misfitIncrease, search, windows);
     }
 
-    /** @return a copy with another regularisation */
+    /**
+     * @param r the regularisation
+     * @return a copy with another regularisation
+     */
     public SpectrumOptions withRegularisation(Regularisation r) {
         return new SpectrumOptions(grid, t1Ms, r, misfitIncrease, search, windows);
     }
 
-    /** @return a copy with another χ² factor */
+    /**
+     * @param f the χ² factor
+     * @return a copy with another χ² factor
+     */
     public SpectrumOptions withMisfitIncrease(double f) {
         return new SpectrumOptions(grid, t1Ms, regularisation, f, search, windows);
     }
 
-    /** @return a copy with another refocusing search */
+    /**
+     * @param s the refocusing search
+     * @return a copy with another refocusing search
+     */
     public SpectrumOptions withSearch(RefocusSearch s) {
         return new SpectrumOptions(grid, t1Ms, regularisation, misfitIncrease, s, windows);
     }
 
-    /** @return a copy with other windows */
+    /**
+     * @param w the windows
+     * @return a copy with other windows
+     */
     public SpectrumOptions withWindows(List<FractionWindow> w) {
         return new SpectrumOptions(grid, t1Ms, regularisation, misfitIncrease, search, w);
     }
 
-    /** @return a copy with another T1 */
+    /**
+     * @param t1 T1 of the basis in ms
+     * @return a copy with another T1
+     */
     public SpectrumOptions withT1Ms(double t1) {
         return new SpectrumOptions(grid, t1, regularisation, misfitIncrease, search, windows);
     }

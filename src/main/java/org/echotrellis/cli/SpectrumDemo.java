@@ -57,7 +57,7 @@ final class SpectrumDemo implements DemoSection {
             int status = fitter.fit(ph.data, v * ph.echoes, amp, sc);
             fractionTrue[v] = (float) ph.shortFraction[v];
             angleTrue[v] = (float) (180 * ph.b1[v]);
-            if (status == SpectrumStatus.OK || status == SpectrumStatus.TARGET_NOT_REACHED) {
+            if (SpectrumStatus.fitted(status)) {
                 fraction[v] = (float) sc[SpectrumFitter.fractionSlot(0)];
                 angle[v] = (float) sc[SpectrumFitter.REFOCUS_DEG];
                 System.arraycopy(amp, 0, spectra, v * bins, bins);

@@ -40,6 +40,7 @@ final class SpectrumKernel implements VoxelKernel {
             case SpectrumStatus.OK: return VoxelStatus.OK;
             case SpectrumStatus.NOT_CONVERGED: return VoxelStatus.NOT_CONVERGED;
             case SpectrumStatus.TARGET_NOT_REACHED: return VoxelStatus.HIT_BOUND;
+            case SpectrumStatus.LOW_SIGNAL: return VoxelStatus.LOW_SIGNAL;
             case SpectrumStatus.MASKED: return VoxelStatus.OUTSIDE_MASK;
             default: return VoxelStatus.INVALID_INPUT;
         }

@@ -88,7 +88,7 @@ final class SpectrumTables {
         List<String> names = new ArrayList<>();
         List<double[]> amps = new ArrayList<>();
         for (SpectrumFit f : fits) {
-            if (f.status() != SpectrumStatus.INVALID && f.status() != SpectrumStatus.NO_SIGNAL) {
+            if (SpectrumStatus.fitted(f.status())) {
                 names.add(f.name());
                 amps.add(f.amplitude());
             }

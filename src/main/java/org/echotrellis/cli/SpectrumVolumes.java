@@ -115,8 +115,8 @@ final class SpectrumVolumes {
         for (String n : scalars) {
             files.add(n + ".nii.gz");
         }
-        files.add("status.nii.gz (0 outside mask, 1 ok, 2 regularisation target not reached, 4 invalid input, "
-                + "5 NNLS iteration limit)");
+        files.add("status.nii.gz (0 outside mask, 1 ok, 2 regularisation target not reached, "
+                + "3 low signal (largest fitted echo < 10 noise SD), 4 invalid input, 5 NNLS iteration limit)");
         return files;
     }
 

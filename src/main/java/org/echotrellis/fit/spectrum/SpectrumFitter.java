@@ -202,7 +202,10 @@ public final class SpectrumFitter {
         if (!converged) {
             return SpectrumStatus.NOT_CONVERGED;
         }
-        return reached ? SpectrumStatus.OK : SpectrumStatus.TARGET_NOT_REACHED;
+        if (!reached) {
+            return SpectrumStatus.TARGET_NOT_REACHED;
+        }
+        return scalars[SNR] < SpectrumStatus.LOW_SIGNAL_SNR ? SpectrumStatus.LOW_SIGNAL : SpectrumStatus.OK;
     }
 
     private void metrics(double[] scalars) {

@@ -16,6 +16,23 @@ public final class SpectrumStatus {
     public static final int NOT_CONVERGED = 4;
     /** The regularisation target could not be bracketed; the result uses the nearest weight tried. */
     public static final int TARGET_NOT_REACHED = 5;
+    /**
+     * Fitted, but the largest fitted echo is below {@link #LOW_SIGNAL_SNR} times the residual noise
+     * estimate: the spectrum is mostly noise. The bar is higher than the mono-component fit's 3×
+     * because 40 free amplitudes also fit noise spikes: pure Rayleigh noise gives SNR estimates of
+     * about 2–5 (common practice: spectra need SNR in the hundreds to be trusted).
+     */
+    public static final int LOW_SIGNAL = 6;
+    /** SNR estimate below which a fit is {@link #LOW_SIGNAL}. */
+    public static final double LOW_SIGNAL_SNR = 10;
+
+    /**
+     * @param status a code
+     * @return true if the decay was fitted (the numbers are defined), whatever the caveat
+     */
+    public static boolean fitted(int status) {
+        return status != MASKED && status != INVALID && status != NO_SIGNAL;
+    }
 
     /**
      * @param status a code
@@ -29,6 +46,7 @@ public final class SpectrumStatus {
             case NO_SIGNAL: return "no positive echo";
             case NOT_CONVERGED: return "NNLS iteration limit";
             case TARGET_NOT_REACHED: return "regularisation target not reached";
+            case LOW_SIGNAL: return "low signal";
             default: return "unknown";
         }
     }

@@ -131,6 +131,24 @@ class SpectrumAccuracyTest {
         }
     }
 
+    @ParameterizedTest
+    @ValueSource(longs = {13, 1313, 131_313})
+    void pureNoiseIsFlagged(long seed) {
+        SpectrumFitter fitter = new SpectrumFitter(CACHE, OPTIONS);
+        SplittableRandom rnd = new SplittableRandom(seed);
+        int flagged = 0;
+        for (int r = 0; r < 50; r++) {
+            double[] y = new double[32];
+            for (int i = 0; i < 32; i++) {
+                y[i] = Math.hypot(0.01 * gaussian(rnd), 0.01 * gaussian(rnd));   // Rayleigh: no signal at all
+            }
+            int s = fitter.fit("noise", y).status();
+            flagged += s == SpectrumStatus.LOW_SIGNAL || s == SpectrumStatus.TARGET_NOT_REACHED ? 1 : 0;
+        }
+        // our rule: largest fitted echo < 10 × noise estimate → low signal; every pure-noise decay is flagged
+        assertTrue(flagged == 50, "flagged " + flagged + "/50");
+    }
+
     static List<FractionWindow> windows() {
         return List.of(FractionWindow.DEFAULT);
     }

@@ -156,8 +156,13 @@ public final class Nnls {
         }
         double tol = GRADIENT_TOL * bmax;
         if (p > 0) {
-            factor(g, ridge, 0);
-            innerLoop(g, b, ridge, x, -1);
+            int dep = factor(g, ridge, 0);
+            if (dep >= 0) {
+                dropFrom(dep, x);      // a warm support need not be independent for this matrix
+            }
+            if (p > 0) {
+                innerLoop(g, b, ridge, x, -1);
+            }
         }
         int limit = 3 * n;
         while (true) {

@@ -105,6 +105,33 @@ class NnlsTest {
     }
 
     @ParameterizedTest
+    @ValueSource(longs = {6, 60, 600})
+    void warmStartOnDependentColumnsRecovers(long seed) {
+        SplittableRandom r = new SplittableRandom(seed);
+        Nnls solver = new Nnls();
+        for (int k = 0; k < 20; k++) {
+            Problem p = random(r);
+            if (p.n() < 3) {
+                continue;
+            }
+            System.arraycopy(p.a(), 0, p.a(), 2 * p.m(), p.m());    // column 2 duplicates column 0
+            double[] g = new double[p.n() * p.n()];
+            double[] b = new double[p.n()];
+            Gram.fill(p.a(), p.m(), p.n(), g);
+            Gram.project(p.a(), p.m(), p.n(), p.y(), 0, b);
+            double[] cold = new double[p.n()];
+            solver.solve(g, b, p.n(), 0, false, cold);
+            double[] warm = new double[p.n()];
+            java.util.Arrays.fill(warm, 0.5);                        // a support with dependent columns
+            assertEquals(Nnls.CONVERGED, solver.solve(g, b, p.n(), 0, true, warm));
+            double[] fit = new double[p.m()];
+            // the fitted vector of NNLS is unique (projection onto a convex cone), whatever the start
+            assertEquals(Gram.residual(p.a(), p.m(), p.n(), cold, p.y(), 0, fit),
+                    Gram.residual(p.a(), p.m(), p.n(), warm, p.y(), 0, fit), 1e-9);
+        }
+    }
+
+    @ParameterizedTest
     @ValueSource(longs = {5, 99, 2024})
     void effectiveDegreesOfFreedomMatchInfluenceMatrixTrace(long seed) {
         SplittableRandom r = new SplittableRandom(seed);

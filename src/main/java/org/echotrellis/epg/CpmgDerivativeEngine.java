@@ -28,7 +28,9 @@ import org.echotrellis.Checks;
  *        F+'_B = t_B + r_B,  F&minus;'_B = t_B &minus; r_B,  z'_B = w z_B &minus; v d_B &minus; A r
  * </pre>
  * (about 40 flops per state and lane, N&sup2;/4 state updates for N echoes). The excitation enters
- * as the factor sin(B1&middot;f&middot;&alpha;<sub>exc</sub>) of each lane's initial state.
+ * as the factor sin(B1&middot;f&middot;&alpha;<sub>exc</sub>) of each lane's initial state. Lanes are
+ * stored one after another and each is mixed with its coefficients in registers (with nine state
+ * arrays the lane-innermost layout did not vectorise and was slower).
  *
  * <p>Not thread-safe: one engine per thread. Buffers grow on demand; after warm-up {@link #run}
  * allocates nothing.
@@ -113,17 +115,18 @@ public final class CpmgDerivativeEngine {
         final int n = train.echoes();
         final int nl = count;
         ensure(n);
-        int used = (2 * n + 2) * nl;
-        int usedZ = (n / 2 + 2) * nl;
-        Arrays.fill(fp, 0, used, 0.0);
-        Arrays.fill(fm, 0, used, 0.0);
-        Arrays.fill(fpT, 0, used, 0.0);
-        Arrays.fill(fmT, 0, used, 0.0);
-        Arrays.fill(fpB, 0, used, 0.0);
-        Arrays.fill(fmB, 0, used, 0.0);
-        Arrays.fill(zz, 0, usedZ, 0.0);
-        Arrays.fill(zzT, 0, usedZ, 0.0);
-        Arrays.fill(zzB, 0, usedZ, 0.0);
+        // Lane-major layout: lane l owns [l*fs, (l+1)*fs) of the F arrays and [l*zs, (l+1)*zs) of z.
+        final int fs = 2 * n + 2;
+        final int zs = n / 2 + 2;
+        Arrays.fill(fp, 0, fs * nl, 0.0);
+        Arrays.fill(fm, 0, fs * nl, 0.0);
+        Arrays.fill(fpT, 0, fs * nl, 0.0);
+        Arrays.fill(fmT, 0, fs * nl, 0.0);
+        Arrays.fill(fpB, 0, fs * nl, 0.0);
+        Arrays.fill(fmB, 0, fs * nl, 0.0);
+        Arrays.fill(zz, 0, zs * nl, 0.0);
+        Arrays.fill(zzT, 0, zs * nl, 0.0);
+        Arrays.fill(zzB, 0, zs * nl, 0.0);
         final double esp = train.echoSpacingMs();
         final double e2 = Math.exp(-esp / t2Ms);
         final double e2Half = Math.exp(-0.5 * esp / t2Ms);
@@ -135,9 +138,9 @@ public final class CpmgDerivativeEngine {
         for (int l = 0; l < nl; l++) {
             double ae = excFactor[l] * excRad;
             double x = Math.sin(b1 * ae) * e2Half;
-            fp[pa * nl + l] = x;
-            fpT[pa * nl + l] = 0.5 * kappa * x;
-            fpB[pa * nl + l] = ae * Math.cos(b1 * ae) * e2Half;
+            fp[l * fs + pa] = x;
+            fpT[l * fs + pa] = 0.5 * kappa * x;
+            fpB[l * fs + pa] = ae * Math.cos(b1 * ae) * e2Half;
         }
         double lastFlip = Double.NaN;
         for (int p = 1; p <= n; p++) {
@@ -163,34 +166,36 @@ public final class CpmgDerivativeEngine {
             }
             lastFlip = flipRad;
             final int top = Math.min(p - 1, n - p);
-            if (nl == 1) {
-                mixOne(top, pa, pb, first ? 0.5 : 0.5 * e2, first ? 0.0 : kappa);
-            } else {
-                mix(top, pa, pb, nl, first ? 0.5 : 0.5 * e2, first ? 0.0 : kappa);
-            }
-            final int ib = pb * nl;
+            final double h = first ? 0.5 : 0.5 * e2;
+            final double k = first ? 0.0 : kappa;
             double s = 0;
             double sT = 0;
             double sB = 0;
             for (int l = 0; l < nl; l++) {
-                double y = fm[ib + l];
+                final int fo = l * fs;
+                mix(top, fo + pa, fo + pb, l * zs, l, h, k);
+                double y = fm[fo + pb];
                 s += weight[l] * y;
-                sT += weight[l] * (fmT[ib + l] + 0.5 * kappa * y);
-                sB += weight[l] * fmB[ib + l];
+                sT += weight[l] * (fmT[fo + pb] + 0.5 * kappa * y);
+                sB += weight[l] * fmB[fo + pb];
+                // two half-interval shifts: F+ moves up one odd order, F- down one; F-(k=1) becomes F+(k=1)
+                fp[fo + pa - 1] = y;
+                fpT[fo + pa - 1] = fmT[fo + pb];
+                fpB[fo + pa - 1] = fmB[fo + pb];
             }
             echo[p - 1] = e2Half * s;
             dT2[p - 1] = e2Half * sT;
             dB1[p - 1] = e2Half * sB;
             pa--;
-            System.arraycopy(fm, ib, fp, pa * nl, nl);
-            System.arraycopy(fmT, ib, fpT, pa * nl, nl);
-            System.arraycopy(fmB, ib, fpB, pa * nl, nl);
             pb++;
         }
     }
 
-    /** {@link #mix} for a single lane, coefficients in registers (the common no-profile case). */
-    private void mixOne(int top, int pa, int pb, double h, double kappa) {
+    /**
+     * One refocusing pulse (with the preceding relaxation folded in) on the values and derivatives of
+     * lane l, whose F+ states start at offset ia0, F- at ib0 and z at iz0; coefficients in registers.
+     */
+    private void mix(int top, int ia0, int ib0, int iz0, int l, double h, double kappa) {
         final double[] a = fp;
         final double[] b = fm;
         final double[] z = zz;
@@ -200,90 +205,41 @@ public final class CpmgDerivativeEngine {
         final double[] aB = fpB;
         final double[] bB = fmB;
         final double[] zB = zzB;
-        final double g = gCoef[0];
-        final double u = uCoef[0];
-        final double v = vCoef[0];
-        final double w = wCoef[0];
-        final double ang = aCoef[0];
+        final double g = gCoef[l];
+        final double u = uCoef[l];
+        final double v = vCoef[l];
+        final double w = wCoef[l];
+        final double ang = aCoef[l];
         final double kv = kappa * v;
         for (int j = 0; j <= top; j++) {
-            final int ia = pa + j;
-            final int ib = pb + j;
+            final int ia = ia0 + j;
+            final int ib = ib0 + j;
+            final int iz = iz0 + j;
             double x = a[ia];
             double y = b[ib];
-            double q = z[j];
+            double q = z[iz];
             double d = x - y;
             double t = h * (x + y);
             double gd = g * d;
             double r = gd + u * q;
             double qn = w * q - v * d;
             double dT = aT[ia] - bT[ib];
-            double qT = zT[j];
+            double qT = zT[iz];
             double tT = h * (aT[ia] + bT[ib]) + kappa * t;
             double rT = g * dT + u * qT + kappa * gd;
             double dB = aB[ia] - bB[ib];
-            double qB = zB[j];
+            double qB = zB[iz];
             double tB = h * (aB[ia] + bB[ib]);
             double rB = g * dB + u * qB + ang * qn;
             a[ia] = t + r;
             b[ib] = t - r;
-            z[j] = qn;
+            z[iz] = qn;
             aT[ia] = tT + rT;
             bT[ib] = tT - rT;
-            zT[j] = w * qT - v * dT - kv * d;
+            zT[iz] = w * qT - v * dT - kv * d;
             aB[ia] = tB + rB;
             bB[ib] = tB - rB;
-            zB[j] = w * qB - v * dB - ang * r;
-        }
-    }
-
-    /** One refocusing pulse (with the preceding relaxation folded in) on values and derivatives. */
-    private void mix(int top, int pa, int pb, int nl, double h, double kappa) {
-        final double[] a = fp;
-        final double[] b = fm;
-        final double[] z = zz;
-        final double[] aT = fpT;
-        final double[] bT = fmT;
-        final double[] zT = zzT;
-        final double[] aB = fpB;
-        final double[] bB = fmB;
-        final double[] zB = zzB;
-        final double[] g = gCoef;
-        final double[] u = uCoef;
-        final double[] v = vCoef;
-        final double[] w = wCoef;
-        final double[] ang = aCoef;
-        for (int j = 0; j <= top; j++) {
-            final int ia = (pa + j) * nl;
-            final int ib = (pb + j) * nl;
-            final int iz = j * nl;
-            for (int l = 0; l < nl; l++) {
-                double x = a[ia + l];
-                double y = b[ib + l];
-                double q = z[iz + l];
-                double d = x - y;
-                double t = h * (x + y);
-                double gd = g[l] * d;
-                double r = gd + u[l] * q;
-                double qn = w[l] * q - v[l] * d;
-                double dT = aT[ia + l] - bT[ib + l];
-                double qT = zT[iz + l];
-                double tT = h * (aT[ia + l] + bT[ib + l]) + kappa * t;
-                double rT = g[l] * dT + u[l] * qT + kappa * gd;
-                double dB = aB[ia + l] - bB[ib + l];
-                double qB = zB[iz + l];
-                double tB = h * (aB[ia + l] + bB[ib + l]);
-                double rB = g[l] * dB + u[l] * qB + ang[l] * qn;
-                a[ia + l] = t + r;
-                b[ib + l] = t - r;
-                z[iz + l] = qn;
-                aT[ia + l] = tT + rT;
-                bT[ib + l] = tT - rT;
-                zT[iz + l] = w[l] * qT - v[l] * dT - kappa * v[l] * d;
-                aB[ia + l] = tB + rB;
-                bB[ib + l] = tB - rB;
-                zB[iz + l] = w[l] * qB - v[l] * dB - ang[l] * r;
-            }
+            zB[iz] = w * qB - v * dB - ang * r;
         }
     }
 }

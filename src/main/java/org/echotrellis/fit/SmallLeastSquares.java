@@ -37,7 +37,7 @@ final class SmallLeastSquares {
     private final boolean[] held;
     private int iterations;
     private boolean converged;
-    private double noiseTol = 1e-4;
+    private double noiseTol = 1e-2;
 
     /**
      * @param parameters number of parameters (1..4)
@@ -60,7 +60,7 @@ final class SmallLeastSquares {
 
     /**
      * @param fraction stop when the predicted cost decrease of a step is below this fraction of
-     *        the residual variance Σr²/(m − p) (default 1e-4; 0 disables the test)
+     *        the residual variance Σr²/(m − p) (default 1e-2, a remaining step of about a tenth of a standard error; 0 disables the test)
      */
     void noiseTolerance(double fraction) {
         this.noiseTol = fraction;

@@ -71,9 +71,10 @@ class EpgFitAccuracyTest {
         Random r = new Random(9);
         double[] clean = FitData.decay(TRAIN, 1000, 60, 0.99);
         T2Estimate near = fit.estimate(FitData.gaussian(clean, clean[0] / 200, r), Double.NaN);
-        assertTrue(near.b1Se() > 0.05, "B1 standard error near 1 must be large, got " + near.b1Se());
         T2Estimate low = fit.estimate(FitData.gaussian(FitData.decay(TRAIN, 1000, 60, 0.7), 1.0 / 200, r), Double.NaN);
         assertTrue(low.b1Se() < 0.01, "B1 standard error at 0.7 is small, got " + low.b1Se());
+        assertTrue(near.b1Se() > 0.03 && near.b1Se() > 5 * low.b1Se(),
+                "B1 standard error near 1 must be large, got " + near.b1Se() + " (at 0.7: " + low.b1Se() + ")");
     }
 
     @Test

@@ -63,6 +63,8 @@ final class EpgFitter {
     private int off;
     private double fixedB1;
     private double amplitude;
+    private final boolean foldActive;
+    private final double b1HiFit;
     private int lastIterations;
 
     EpgFitter(FitSettings settings, StartDictionary dictionary) {
@@ -82,6 +84,8 @@ final class EpgFitter {
         double lnLo = Math.log(settings.t2MinMs());
         double lnHi = Math.log(settings.t2MaxMs());
         double bHi = settings.effectiveB1Max();
+        b1HiFit = bHi;
+        foldActive = settings.foldActive();
         lo2 = new double[] {lnLo, settings.b1Min()};
         hi2 = new double[] {lnHi, bHi};
         lo1 = new double[] {lnLo};
@@ -110,7 +114,7 @@ final class EpgFitter {
         }
         y = data;
         off = offset;
-        fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : Math.max(settings.b1Min(), Math.min(settings.effectiveB1Max(), b1Fixed));
+        fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : Math.max(settings.b1Min(), Math.min(b1HiFit, b1Fixed));
         dictionary.best(data, offset, fixedB1, scan, start);
         boolean free = Double.isNaN(fixedB1);
         double cost;
@@ -190,7 +194,7 @@ final class EpgFitter {
             return VoxelStatus.NOT_CONVERGED;
         }
         boolean onBound = lnT2 <= lo1[0] + 1e-9 || lnT2 >= hi1[0] - 1e-9
-                || free && (b1 <= lo2[1] + 1e-9 || (!settings.foldActive() && b1 >= hi2[1] - 1e-9));
+                || free && (b1 <= lo2[1] + 1e-9 || (!foldActive && b1 >= hi2[1] - 1e-9));
         if (onBound) {
             return VoxelStatus.HIT_BOUND;
         }

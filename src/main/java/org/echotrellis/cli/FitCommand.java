@@ -32,15 +32,20 @@ import picocli.CommandLine.Spec;
             "DATA is a CSV decay table (first column echo time in ms, one decay per further column) "
                 + "or a 4-D NIfTI-1 series (.nii/.nii.gz, x, y, z, echo)."},
         footer = {"", "Examples:",
-            "  echotrellis fit decays.csv --protocol sequences/brain-mwi-32.yaml --format json",
-            "  echotrellis fit series.nii.gz --protocol sequences/knee-t2-16.yaml --mask mask.nii.gz --out t2maps --compare-mono",
-            "  echotrellis fit series.nii.gz --protocol p.yaml --slice-profile sinc:4 --noise-sigma auto --mask m.nii",
+            "  echotrellis fit decays.csv --protocol sequences/brain-mwi-32.yaml \\",
+            "      --format json",
+            "  echotrellis fit series.nii.gz --protocol sequences/knee-t2-16.yaml \\",
+            "      --mask mask.nii.gz --out t2maps --compare-mono",
+            "  echotrellis fit series.nii.gz --protocol p.yaml --mask m.nii \\",
+            "      --slice-profile sinc:4 --noise-sigma auto",
             "",
-            "Volumes write t2_ms, t2_se_ms, b1_scale, b1_se, amplitude, residual_rms, status (and mono_t2_ms)",
-            "as .nii.gz maps, PNG previews and summary.json into --out. Status codes: 0 outside mask, 1 ok,",
-            "2 hit bound, 3 low signal, 4 invalid input, 5 not converged.",
-            "B1 is reported folded (refocusing angle <= 180 deg) for constant trains: B1 = 1 + x and 1 - x",
-            "give the same magnitude train. Near B1 = 1 the B1 estimate is weak; see b1_se."})
+            "Volumes: t2_ms, t2_se_ms, b1_scale, b1_se, amplitude, residual_rms, status",
+            "(and mono_t2_ms) as .nii.gz maps, PNG previews and summary.json in --out.",
+            "Status: 0 outside mask, 1 ok, 2 hit bound, 3 low signal, 4 invalid input,",
+            "5 not converged.",
+            "B1 is reported folded (refocusing angle <= 180 deg) for constant trains:",
+            "B1 = 1 + x and 1 - x give the same magnitude train. Near B1 = 1 the B1",
+            "estimate is weak; see b1_se."})
 public final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;

@@ -134,6 +134,46 @@ class FitCommandTest {
     }
 
     @Test
+    void b1MapFixesB1AndAutoNoiseUsesTheBackground() throws IOException {
+        int nx = 8;
+        int nv = nx * nx;
+        double[] data = new double[nv * 32];
+        double[] mask = new double[nv];
+        double[] b1 = new double[nv];
+        java.util.Random r = new java.util.Random(31);
+        for (int v = 0; v < nv; v++) {
+            boolean inside = v % nx >= 2 && v % nx < 6;
+            mask[v] = inside ? 1 : 0;
+            b1[v] = 0.6 + 0.3 * (v % nx) / nx;
+            double[] e = inside ? decay(70, b1[v], 100) : new double[32];
+            for (int k = 0; k < 32; k++) {
+                data[k * nv + v] = Math.hypot(e[k] + 0.5 * r.nextGaussian(), 0.5 * r.nextGaussian());
+            }
+        }
+        Path series = dir.resolve("b.nii");
+        Nifti.write(series, NiftiHeader.create(NiftiDatatype.FLOAT32, nx, nx, 1, 32), data, false);
+        Path maskFile = dir.resolve("bm.nii");
+        Nifti.write(maskFile, NiftiHeader.create(NiftiDatatype.UINT8, nx, nx, 1), mask, false);
+        Path b1File = dir.resolve("b1.nii");
+        Nifti.write(b1File, NiftiHeader.create(NiftiDatatype.FLOAT32, nx, nx, 1), b1, false);
+        Path out = dir.resolve("bmaps");
+        CliRun run = CliRun.of("fit", series.toString(), "--protocol", PROTOCOL, "--mask", maskFile.toString(),
+                "--b1-map", b1File.toString(), "--noise-sigma", "auto", "--out", out.toString(), "--quiet");
+        assertEquals(0, run.code(), run.err());
+        NiftiImage b1Out = Nifti.read(out.resolve("b1_scale.nii.gz"));
+        NiftiImage t2 = Nifti.read(out.resolve("t2_ms.nii.gz"));
+        JsonNode s = Json.MAPPER.readTree(out.resolve("summary.json").toFile());
+        // background of pure Rician noise: sigma = sqrt(mean M^2 / 2) (Gudbjartsson & Patz 1995)
+        assertEquals(0.5, s.get("settings").get("noise_sigma").asDouble(), 0.05);
+        for (int v = 0; v < nv; v++) {
+            if (mask[v] == 1) {
+                assertEquals((float) b1[v], b1Out.get(v), 1e-6);
+                assertEquals(70, t2.get(v), 70 * 0.05);  // SNR 200 on the first echo: within about 3 SE
+            }
+        }
+    }
+
+    @Test
     void badInputGivesOneLineAndExitCode2() throws IOException {
         Path series = dir.resolve("s.nii");
         Nifti.write(series, NiftiHeader.create(NiftiDatatype.INT16, 2, 2, 1, 16), new double[64], false);
@@ -169,6 +209,9 @@ class FitCommandTest {
         CliRun r = CliRun.of("fit", "--help");
         assertEquals(0, r.code());
         assertTrue(r.out().contains("echotrellis fit decays.csv --protocol"), r.out());
+        for (String line : r.out().split("\\R")) {
+            assertTrue(line.length() <= 80, "help line longer than 80: " + line);
+        }
         assertTrue(r.out().contains("--slice-profile"));
     }
 }

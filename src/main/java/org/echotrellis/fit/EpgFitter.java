@@ -114,7 +114,7 @@ final class EpgFitter {
         }
         y = data;
         off = offset;
-        fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : Math.max(settings.b1Min(), Math.min(b1HiFit, b1Fixed));
+        fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : foldFixed(b1Fixed);
         dictionary.best(data, offset, fixedB1, scan, start);
         boolean free = Double.isNaN(fixedB1);
         double cost;
@@ -180,6 +180,15 @@ final class EpgFitter {
             peakModel = Math.max(peakModel, y[off + i] - rFinal[i]);
         }
         return status(converged, lnT2, b1, free, peakModel, Math.sqrt(s2));
+    }
+
+    /**
+     * A B1 value from a map, folded like the fitted values (a refocusing angle above 180° is
+     * equivalent to 360° minus it) and kept within the bounds.
+     */
+    private double foldFixed(double b1) {
+        double v = foldActive && b1 > b1HiFit ? 2 * b1HiFit - b1 : b1;
+        return Math.max(settings.b1Min(), Math.min(b1HiFit, v));
     }
 
     /** @return LM iterations of the last fit (the least-squares stage) */

@@ -84,6 +84,10 @@ class EpgFitAccuracyTest {
         assertEquals(45, e.t2Ms(), 45 * 1e-5);
         assertEquals(0.75, e.b1Scale(), 0.0);
         assertTrue(Double.isNaN(e.b1Se()));
+        // a map value of 1.25 means refocusing at 225°, the same magnitude train as 135° (B1 0.75)
+        T2Estimate folded = fit.estimate(FitData.decay(TRAIN, 1000, 45, 1.25), 1.25);
+        assertEquals(0.75, folded.b1Scale(), 1e-12);
+        assertEquals(45, folded.t2Ms(), 45 * 1e-5);
     }
 
     @Test

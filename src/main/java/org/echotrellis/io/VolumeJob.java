@@ -14,13 +14,14 @@ import org.echotrellis.InputException;
  * @param mask optional mask on the same grid
  * @param b1Map optional B1 map on the same grid
  * @param threads worker threads (≥ 1)
- * @param slabValues upper bound on doubles held per slab (≥ 1; at least one slice is read)
+ * @param slabValues upper bound on doubles per slab buffer (≥ 1; at least one slice is read; the
+ *        pipeline holds two buffers)
  */
 public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<NiftiImage> b1Map, int threads,
                         long slabValues) {
 
-    /** Default slab budget: 8 M doubles (64 MB). */
-    public static final long DEFAULT_SLAB_VALUES = 8L << 20;
+    /** Default slab budget: 4 M doubles (32 MB; two slabs are held). */
+    public static final long DEFAULT_SLAB_VALUES = 4L << 20;
 
     /** Validates shapes. */
     public VolumeJob {

@@ -11,7 +11,8 @@ import java.util.concurrent.atomic.AtomicLong;
 
 /**
  * Runs a {@link VoxelKernel} over every voxel of a volume: reads the series slab by slab (whole z
- * slices, bounded by {@link VolumeJob#slabValues()}), skips voxels outside the mask, marks voxels
+ * slices, bounded by {@link VolumeJob#slabValues()}; the next slab is read while the current one is
+ * processed, so two slabs are held), skips voxels outside the mask, marks voxels
  * with non-finite echoes or an invalid B1 value {@link VoxelStatus#INVALID_INPUT} (the volume goes
  * on), and spreads the rest over worker threads in chunks, one kernel (workspace) per thread.
  * Output maps are float arrays of one 3-D volume each.
@@ -46,7 +47,9 @@ public final class VolumePipeline {
             }
         }
         int slabSlices = (int) Math.max(1, Math.min(nz, job.slabValues() / ((long) slice * echoes)));
+        // two slab buffers: the next slab is read while the workers fit the current one
         double[] slab = new double[slabSlices * slice * echoes];
+        double[] next = new double[slab.length];
         int threads = job.threads();
         VoxelKernel[] kernels = new VoxelKernel[threads];
         double[][] outs = new double[threads][names.size()];
@@ -61,27 +64,34 @@ public final class VolumePipeline {
             return th;
         });
         try {
+            job.data().readSlab(0, Math.min(slabSlices, nz), slab);
             for (int z0 = 0; z0 < nz; z0 += slabSlices) {
                 int nzs = Math.min(slabSlices, nz - z0);
-                job.data().readSlab(z0, nzs, slab);
                 int base = z0 * slice;
                 int count = nzs * slice;
                 AtomicInteger cursor = new AtomicInteger();
                 List<Future<?>> futures = new ArrayList<>();
+                final double[] current = slab;
                 for (int t = 0; t < threads; t++) {
                     final int ti = t;
                     futures.add(pool.submit(() -> {
                         int start;
                         while ((start = cursor.getAndAdd(CHUNK)) < count) {
                             int end = Math.min(count, start + CHUNK);
-                            int n = work(job, kernels[ti], outs[ti], slab, base, start, end, echoes, maps, status);
+                            int n = work(job, kernels[ti], outs[ti], current, base, start, end, echoes, maps, status);
                             progress.advance(done.addAndGet(n));
                         }
                     }));
                 }
+                int z1 = z0 + slabSlices;
+                if (z1 < nz) {
+                    job.data().readSlab(z1, Math.min(slabSlices, nz - z1), next);
+                }
                 for (Future<?> f : futures) {
                     f.get();
                 }
+                slab = next;
+                next = current;
             }
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();

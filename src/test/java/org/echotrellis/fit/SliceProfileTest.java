@@ -52,6 +52,38 @@ class SliceProfileTest {
     }
 
     @Test
+    void gaussianShapeHasItsTimeBandwidthProduct() {
+        // Fourier pair of a Gaussian (common practice): exp(-t^2/2s^2) has spectral FWHM
+        // sqrt(2 ln 2)/(pi s); at a small tip the excitation FWHM is the spectral FWHM.
+        for (double tbw : new double[] {2, 4}) {
+            double fwhm = BlochProfile.excitationFwhm(PulseShape.gauss(tbw), Math.toRadians(5));
+            assertEquals(tbw, fwhm, 0.03 * tbw, "gauss:" + tbw);
+        }
+    }
+
+    @Test
+    void pulseFileIsReadAndCheckedLineByLine(@org.junit.jupiter.api.io.TempDir java.nio.file.Path dir)
+            throws java.io.IOException {
+        java.nio.file.Path f = dir.resolve("rect.txt");
+        java.nio.file.Files.writeString(f, "# a hard pulse\n" + "2\n".repeat(40));
+        PulseShape shape = PulseShape.read(f);
+        assertEquals(40, shape.samples().length);
+        assertEquals(1.0, shape.samples()[7], 0.0);  // normalised to peak 1
+        double a = Math.PI;
+        double phi = Math.hypot(a, 2 * Math.PI * 0.4);
+        assertEquals(2 * Math.asin(a / phi * Math.sin(phi / 2)), BlochProfile.effectiveFlip(shape, a, 0.4), 1e-9);
+        SliceProfile p = SliceProfiles.parse(f.toString(), CpmgTrain.constant(8, 10, 180), 8, 2.0);
+        assertEquals(8, p.positions());
+        java.nio.file.Path bad = dir.resolve("bad.txt");
+        java.nio.file.Files.writeString(bad, "1\n1\nabc\n");
+        org.echotrellis.InputException e = org.junit.jupiter.api.Assertions.assertThrows(
+                org.echotrellis.InputException.class, () -> PulseShape.read(bad));
+        assertTrue(e.getMessage().contains("line 3"), e.getMessage());
+        org.junit.jupiter.api.Assertions.assertThrows(org.echotrellis.InputException.class,
+                () -> SliceProfiles.parse(dir.resolve("none.txt").toString(), CpmgTrain.constant(8, 10, 180), 8, 1));
+    }
+
+    @Test
     void profileFitRecoversT2WhereTheIdealModelIsBiased() {
         CpmgTrain train = CpmgTrain.constant(32, 10, 180);
         SliceProfile p = SliceProfiles.parse("sinc:4", train, 16, 1.0);

@@ -10,7 +10,10 @@ import org.echotrellis.io.VoxelStatus;
  * <p>Steps: (1) start from the best atom of a coarse {@link StartDictionary}; (2) Levenberg–
  * Marquardt over (ln T2, B1) with the amplitude projected out (variable projection, Golub &amp;
  * Pereyra, SIAM J Numer Anal 10:413, 1973; for one linear parameter A = g·y/g·g and the exact
- * Jacobian of A·g is A ∂g + g (∂g·y − 2A g·∂g)/g·g), with analytic EPG derivatives; (3) with a
+ * Jacobian of A·g is A ∂g + g (∂g·y − 2A g·∂g)/g·g), with analytic EPG derivatives. With an
+ * active fold limit L (constant refocusing, B1·α ≤ 180°) the train is an even function of
+ * B1 − L, so it is flat to second order at the fold; the solver works on q = (L − B1)², in which
+ * the train is smooth and not flat, and converges quadratically right up to the fold; (3) with a
  * noise σ, refine (A, ln T2, B1) on the Rician mean E[M](A·g, σ) ({@link Rician}), so late echoes
  * on the noise floor do not lengthen T2; (4) Cramér–Rao standard errors ({@link Covariance}) from
  * the amplitude-projected Jacobian and the residual variance.
@@ -29,6 +32,8 @@ final class EpgFitter {
 
     private static final int MAX_ITERATIONS = 60;
     private static final double STEP_TOL = 1e-6;
+    /** Smallest fold parameter q = (L − B1)²: B1 stays 1e-8 below the fold limit L. */
+    private static final double Q_MIN = 1e-16;
 
     private final FitSettings settings;
     private final EpgSignal signal;
@@ -86,12 +91,14 @@ final class EpgFitter {
         double bHi = settings.effectiveB1Max();
         b1HiFit = bHi;
         foldActive = settings.foldActive();
-        lo2 = new double[] {lnLo, settings.b1Min()};
-        hi2 = new double[] {lnHi, bHi};
+        double qLo = foldActive ? Q_MIN : settings.b1Min();
+        double qHi = foldActive ? (bHi - settings.b1Min()) * (bHi - settings.b1Min()) : bHi;
+        lo2 = new double[] {lnLo, qLo};
+        hi2 = new double[] {lnHi, qHi};
         lo1 = new double[] {lnLo};
         hi1 = new double[] {lnHi};
-        lo3 = new double[] {0, lnLo, settings.b1Min()};
-        hi3 = new double[] {Double.MAX_VALUE, lnHi, bHi};
+        lo3 = new double[] {0, lnLo, qLo};
+        hi3 = new double[] {Double.MAX_VALUE, lnHi, qHi};
     }
 
     /**
@@ -123,11 +130,11 @@ final class EpgFitter {
         double b1;
         if (free) {
             x2[0] = Math.log(start[0]);
-            x2[1] = start[1];
+            x2[1] = toParam(start[1]);
             lm = lmFree;
             cost = lm.solve(varPro, x2, lo2, hi2, MAX_ITERATIONS, STEP_TOL);
             lnT2 = x2[0];
-            b1 = x2[1];
+            b1 = toB1(x2[1]);
         } else {
             x1[0] = Math.log(start[0]);
             lm = lmFixed;
@@ -148,24 +155,24 @@ final class EpgFitter {
         double s2 = cost / Math.max(1, n - p - 1);
         (free ? cov2 : cov1).standardErrors(jp, n, s2, fNorm, se);
         double seLnT2 = se[0];
-        double seB1 = free ? se[1] : Double.NaN;
+        double seB1 = free ? se[1] * Math.abs(dB1(x2[1])) : Double.NaN;
         if (!Double.isNaN(settings.noiseSigma())) {
             SmallLeastSquares lr = free ? lmRiceFree : lmRiceFixed;
             double[] x = free ? x3 : x2;
             x[0] = amp;
             x[1] = lnT2;
             if (free) {
-                x[2] = b1;
+                x[2] = toParam(b1);
             }
             cost = lr.solve(riceMean, x, lo3, hi3, MAX_ITERATIONS, STEP_TOL);
             converged = lr.converged();
             amp = x[0];
             lnT2 = x[1];
-            b1 = free ? x[2] : fixedB1;
+            b1 = free ? toB1(x[2]) : fixedB1;
             s2 = cost / Math.max(1, n - p - 1);
             (free ? cov3 : cov2).standardErrors(lr.jacobian(), n, s2, modelNorm(lr.residuals()), se);
             seLnT2 = se[1];
-            seB1 = free ? se[2] : Double.NaN;
+            seB1 = free ? se[2] * Math.abs(dB1(x[2])) : Double.NaN;
         }
         double t2 = Math.exp(lnT2);
         out[T2] = t2;
@@ -180,6 +187,21 @@ final class EpgFitter {
             peakModel = Math.max(peakModel, y[off + i] - rFinal[i]);
         }
         return status(converged, lnT2, b1, free, peakModel, Math.sqrt(s2));
+    }
+
+    /** B1 from the solver's parameter: B1 = L − √q at an active fold limit L, else q itself. */
+    private double toB1(double q) {
+        return foldActive ? b1HiFit - Math.sqrt(Math.max(q, 0)) : q;
+    }
+
+    /** The solver's parameter for a B1 value (inverse of {@link #toB1}). */
+    private double toParam(double b1) {
+        return foldActive ? Math.max(Q_MIN, (b1HiFit - b1) * (b1HiFit - b1)) : b1;
+    }
+
+    /** dB1/dq. */
+    private double dB1(double q) {
+        return foldActive ? -0.5 / Math.sqrt(Math.max(q, Q_MIN)) : 1;
     }
 
     /**
@@ -203,7 +225,7 @@ final class EpgFitter {
             return VoxelStatus.NOT_CONVERGED;
         }
         boolean onBound = lnT2 <= lo1[0] + 1e-9 || lnT2 >= hi1[0] - 1e-9
-                || free && (b1 <= lo2[1] + 1e-9 || (!foldActive && b1 >= hi2[1] - 1e-9));
+                || free && (b1 <= settings.b1Min() + 1e-9 || (!foldActive && b1 >= b1HiFit - 1e-9));
         if (onBound) {
             return VoxelStatus.HIT_BOUND;
         }
@@ -248,7 +270,8 @@ final class EpgFitter {
         public double evaluate(double[] x, double[] r, double[] jac) {
             boolean free = x.length == 2;
             double t2 = Math.exp(x[0]);
-            double b1 = free ? x[1] : fixedB1;
+            double b1 = free ? toB1(x[1]) : fixedB1;
+            double chain = free ? dB1(x[1]) : 0;
             signal.evaluate(t2, b1, g, gT, gB);
             double gg = 0;
             double gy = 0;
@@ -280,7 +303,7 @@ final class EpgFitter {
                 cost += ri * ri;
                 jac[i * p] = a * gT[i] + g[i] * daT;
                 if (free) {
-                    jac[i * p + 1] = a * gB[i] + g[i] * daB;
+                    jac[i * p + 1] = (a * gB[i] + g[i] * daB) * chain;
                 }
             }
             return cost;
@@ -294,7 +317,8 @@ final class EpgFitter {
             boolean free = x.length == 3;
             double a = x[0];
             double t2 = Math.exp(x[1]);
-            double b1 = free ? x[2] : fixedB1;
+            double b1 = free ? toB1(x[2]) : fixedB1;
+            double chain = free ? dB1(x[2]) : 0;
             signal.evaluate(t2, b1, g, gT, gB);
             double sigma = settings.noiseSigma();
             double cost = 0;
@@ -310,7 +334,7 @@ final class EpgFitter {
                 jac[i * p] = d * g[i];
                 jac[i * p + 1] = d * a * gT[i];
                 if (free) {
-                    jac[i * p + 2] = d * a * gB[i];
+                    jac[i * p + 2] = d * a * gB[i] * chain;
                 }
             }
             return cost;

@@ -126,12 +126,13 @@ final class FitDemo implements DemoSection {
             b[x] = mono[v];
             t[x] = t2(x, y);
         }
-        ChartFiles.write(LineChart.create("T2 along the middle row of cylinders (true T2 80 ms)", "x (voxel)", "T2 (ms)")
+        LineChart chart = LineChart.create("T2 along the middle row of cylinders (true T2 80 ms)", "x (voxel)", "T2 (ms)")
                 .subtitle("B1 falls from 1.0 (left) to 0.55 (right): the mono-exponential T2 rises, the EPG T2 stays")
                 .add("EPG fit", xs, a, LineChart.Look.MARKERS, 0)
                 .add("mono-exponential fit", xs, b, LineChart.Look.MARKERS, 1)
-                .add("true T2", xs, t, LineChart.Look.LINE, 5)
-                .build(), ctx.file("phantom-t2-profile.png"), 900, 520, ctx.force());
+                .add("true T2", xs, t, LineChart.Look.LINE, 5);
+        ChartFiles.write(chart.build(), ctx.file("phantom-t2-profile.png"), 900, 520, ctx.force());
+        ChartFiles.write(chart.build(), ctx.file("phantom-t2-profile.svg"), 900, 520, ctx.force());
     }
 
     private static void summary(DemoContext ctx, VolumeResult res, double sigma, Protocol p) {
@@ -180,7 +181,7 @@ final class FitDemo implements DemoSection {
             }
         }
         s.append("\nFigures: `phantom-t2-epg.png`, `phantom-t2-mono.png` (same colour range), `phantom-b1.png`, "
-                + "`phantom-t2-profile.png`. Data: `phantom-series.nii.gz`, `phantom-mask.nii.gz`.\n\n");
+                + "`phantom-t2-profile.png` (and `.svg`). Data: `phantom-series.nii.gz`, `phantom-mask.nii.gz`.\n\n");
     }
 
     /** Small helpers kept apart from the table code. */

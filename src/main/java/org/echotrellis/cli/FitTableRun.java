@@ -40,7 +40,9 @@ final class FitTableRun {
         checkTimes(table, train);
         String stem = csv.getFileName().toString().replaceAll("\\.[^.]*$", "");
         Path plotFile = outDir.resolve(stem + "-fit.png");
+        Path svgFile = outDir.resolve(stem + "-fit.svg");
         org.echotrellis.io.AtomicFiles.checkWritable(plotFile, force);
+        org.echotrellis.io.AtomicFiles.checkWritable(svgFile, force);
         T2Fit fit = factory.newKernel();
         double[] times = table.echoTimesMs();
         LineChart chart = LineChart.create(protocol.name() + ": decays and fits", "echo time (ms)", "signal")
@@ -69,6 +71,7 @@ final class FitTableRun {
         }
         o.flush();
         ChartFiles.write(chart.build(), plotFile, 900, 560, force);
+        ChartFiles.write(chart.build(), svgFile, 900, 560, force);
     }
 
     private static void checkTimes(DecayTable t, CpmgTrain train) {

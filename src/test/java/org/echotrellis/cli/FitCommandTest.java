@@ -65,6 +65,7 @@ class FitCommandTest {
             assertTrue(fits.get(0).has(key), key);
         }
         assertTrue(Files.size(out.resolve("decays-fit.png")) > 1000);
+        assertTrue(Files.readString(out.resolve("decays-fit.svg")).contains("<svg"));
         CliRun table = CliRun.of("fit", csv().toString(), "--protocol", PROTOCOL, "--out", out.toString(), "--force");
         assertEquals(0, table.code(), table.err());
         assertTrue(table.out().startsWith("name"), table.out());

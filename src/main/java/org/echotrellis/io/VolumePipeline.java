@@ -13,8 +13,8 @@ import java.util.concurrent.atomic.AtomicLong;
  * Runs a {@link VoxelKernel} over every voxel of a volume: reads the series slab by slab (whole z
  * slices, bounded by {@link VolumeJob#slabValues()}; the next slab is read while the current one is
  * processed, so two slabs are held), skips voxels outside the mask, marks voxels
- * with non-finite echoes or an invalid B1 value {@link VoxelStatus#INVALID_INPUT} (the volume goes
- * on), and spreads the rest over worker threads in chunks, one kernel (workspace) per thread.
+ * with non-finite echoes or an invalid B1 value {@link VoxelStatus#INVALID_INPUT} and voxels whose
+ * kernel throws {@link VoxelStatus#NOT_CONVERGED} with NaN outputs (the volume goes on), and spreads the rest over worker threads in chunks, one kernel (workspace) per thread.
  * Output maps are float arrays of one 3-D volume each.
  */
 public final class VolumePipeline {
@@ -130,9 +130,15 @@ public final class VolumePipeline {
             }
             VoxelStatus s;
             if (valid) {
-                s = kernel.process(slab, off, echoes, b1, out);
-                for (int k = 0; k < maps.length; k++) {
-                    maps[k][gi] = (float) out[k];
+                try {
+                    s = kernel.process(slab, off, echoes, b1, out);
+                    for (int k = 0; k < maps.length; k++) {
+                        maps[k][gi] = (float) out[k];
+                    }
+                } catch (RuntimeException e) {
+                    // one voxel never stops the volume: its solver failed, record it and go on
+                    s = VoxelStatus.NOT_CONVERGED;
+                    fillNaN(maps, gi);
                 }
             } else {
                 s = VoxelStatus.INVALID_INPUT;

@@ -9,7 +9,7 @@ package org.echotrellis.io;
  *   <li>2 {@link #HIT_BOUND}: fitted, a parameter ended on a bound (treat the value as a limit);</li>
  *   <li>3 {@link #LOW_SIGNAL}: fitted, but the signal is too weak relative to the noise to trust;</li>
  *   <li>4 {@link #INVALID_INPUT}: not fitted: NaN/Inf echo, all echoes ≤ 0, or an invalid B1 value;</li>
- *   <li>5 {@link #NOT_CONVERGED}: the solver stopped at its iteration limit.</li>
+ *   <li>5 {@link #NOT_CONVERGED}: the solver stopped at its iteration limit or failed (NaN outputs).</li>
  * </ul>
  */
 public enum VoxelStatus {
@@ -23,7 +23,7 @@ public enum VoxelStatus {
     LOW_SIGNAL("low_signal"),
     /** 4: input values unusable, not fitted */
     INVALID_INPUT("invalid_input"),
-    /** 5: iteration limit reached */
+    /** 5: iteration limit reached, or the solver failed */
     NOT_CONVERGED("not_converged");
 
     private final String label;

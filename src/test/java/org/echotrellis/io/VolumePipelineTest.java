@@ -132,6 +132,41 @@ class VolumePipelineTest {
     }
 
     @Test
+    void aFailingVoxelIsRecordedAndTheVolumeGoesOn() {
+        Path f = dir.resolve("fail.nii");
+        double[] data = new double[3 * 2 * 1 * 2];
+        for (int i = 0; i < data.length; i++) {
+            data[i] = i;
+        }
+        Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT32, 3, 2, 1, 2), data, false);
+        VoxelKernel.Factory failOnFour = new VoxelKernel.Factory() {
+            @Override
+            public List<String> outputs() {
+                return List.of("first");
+            }
+
+            @Override
+            public VoxelKernel newKernel() {
+                return (echoes, offset, count, b1, out) -> {
+                    if (echoes[offset] == 4) {
+                        throw new ArithmeticException("solver failure");
+                    }
+                    out[0] = echoes[offset];
+                    return VoxelStatus.OK;
+                };
+            }
+        };
+        try (NiftiInput in = Nifti.open(f)) {
+            VolumeResult r = VolumePipeline.run(VolumeJob.of(in, Optional.empty(), Optional.empty()), failOnFour,
+                    ProgressReporter.NONE);
+            assertEquals(VoxelStatus.NOT_CONVERGED.code(), r.status()[4]);
+            assertTrue(Float.isNaN(r.map("first")[4]));
+            assertEquals(5f, r.map("first")[5], 0f);
+            assertEquals(5L, r.statusCounts().get(VoxelStatus.OK));
+        }
+    }
+
+    @Test
     void percentileInterpolatesBetweenRanks() {
         double[] v = {1, 2, 3, 4, 5};
         assertEquals(3, RunSummary.percentile(v, 50), 0.0);

@@ -27,9 +27,15 @@ public final class GeneralEngine {
     private double[] sinHalf = new double[0];
     private double[] e1 = new double[0];
     private double[] e2 = new double[0];
+    /** Deferred relaxation: true F = scaleF * stored F, true Z_k = scaleZ * stored Z_k (k >= 1); Z0 is stored true. */
+    private final double[] scaleF = new double[64];
+    private final double[] scaleZ = new double[64];
     private final double[] halfCos = new double[64];
     private final double[] sinA = new double[64];
     private final double[] cosA = new double[64];
+    private final double[] sinZ = new double[64];
+    private final double[] sinF = new double[64];
+    private final double[] sin0 = new double[64];
 
     /** @param lanes number of trains simulated in lock-step (1 to 64) */
     public GeneralEngine(int lanes) {
@@ -84,6 +90,8 @@ public final class GeneralEngine {
         Arrays.fill(zIm, 0, (p.maxOrder + 1) * nl, 0.0);
         for (int l = 0; l < nl; l++) {
             zRe[l] = 1.0;
+            scaleF[l] = 1.0;
+            scaleZ[l] = 1.0;
         }
         for (int u = 0; u < p.flipsRad.length; u++) {
             for (int l = 0; l < nl; l++) {
@@ -119,13 +127,13 @@ public final class GeneralEngine {
                 }
                 case EpgProgram.INTERVAL -> {
                     base -= p.dephasing[i];
-                    relax(p.table[i], base, p.window[i]);
+                    relax(p.table[i], p.window[i], base);
                 }
                 default -> {
                     int pos = base * nl;
                     for (int l = 0; l < count; l++) {
-                        double xr = fRe[pos + l];
-                        double xi = fIm[pos + l];
+                        double xr = scaleF[l] * fRe[pos + l];
+                        double xi = scaleF[l] * fIm[pos + l];
                         outRe[l * ne + echo] = xr * frameCos - xi * frameSin;
                         outIm[l * ne + echo] = xr * frameSin + xi * frameCos;
                     }
@@ -158,43 +166,54 @@ public final class GeneralEngine {
         double sum = 0;
         for (int k = -win; k <= win; k++) {
             int i = (base + k) * nl + lane;
-            sum += fRe[i] * fRe[i] + fIm[i] * fIm[i];
+            sum += (fRe[i] * fRe[i] + fIm[i] * fIm[i]) * scaleF[lane] * scaleF[lane];
         }
         for (int k = 0; k <= win; k++) {
             double m = zRe[k * nl + lane] * zRe[k * nl + lane] + zIm[k * nl + lane] * zIm[k * nl + lane];
-            sum += k == 0 ? m : 2 * m;
+            sum += k == 0 ? m : 2 * m * scaleZ[lane] * scaleZ[lane];
         }
         return sum;
     }
 
-    private void relax(int u, int base, int win) {
+    /*
+     * Relaxation is deferred: F and Z_k (k >= 1) relax uniformly, so only the per-lane scales change
+     * (O(lanes) instead of O(states x lanes)); the RF pulse folds the scale ratio into its mixing
+     * coefficients. Z0 recovers toward M0 and is kept true. Scales are folded back into the states
+     * before they could underflow.
+     */
+    private void relax(int u, int win, int base) {
         final int nl = lanes;
-        final double[] r1 = e1;
-        final double[] r2 = e2;
         final int eo = u * nl;
-        final double[] fr = fRe;
-        final double[] fi = fIm;
-        for (int k = base - win; k <= base + win; k++) {
-            final int ip = k * nl;
-            for (int l = 0; l < nl; l++) {
-                double f = r2[eo + l];
-                fr[ip + l] *= f;
-                fi[ip + l] *= f;
-            }
-        }
+        boolean renormalise = false;
         for (int l = 0; l < nl; l++) {
-            double f = r1[eo + l];
-            zRe[l] = f * zRe[l] + (1.0 - f);
-            zIm[l] *= f;
+            double f1 = e1[eo + l];
+            zRe[l] = f1 * zRe[l] + (1.0 - f1);
+            zIm[l] *= f1;
+            scaleF[l] *= e2[eo + l];
+            scaleZ[l] *= f1;
+            renormalise |= scaleF[l] < 1e-120 || scaleZ[l] < 1e-120;
+        }
+        if (renormalise) {
+            foldScales(win, base);
+        }
+    }
+
+    private void foldScales(int win, int base) {
+        final int nl = lanes;
+        for (int k = base - win; k <= base + win; k++) {
+            for (int l = 0; l < nl; l++) {
+                fRe[k * nl + l] *= scaleF[l];
+                fIm[k * nl + l] *= scaleF[l];
+            }
         }
         for (int k = 1; k <= win; k++) {
-            final int iz = k * nl;
             for (int l = 0; l < nl; l++) {
-                double f = r1[eo + l];
-                zRe[iz + l] *= f;
-                zIm[iz + l] *= f;
+                zRe[k * nl + l] *= scaleZ[l];
+                zIm[k * nl + l] *= scaleZ[l];
             }
         }
+        java.util.Arrays.fill(scaleF, 0, nl, 1.0);
+        java.util.Arrays.fill(scaleZ, 0, nl, 1.0);
     }
 
     /*
@@ -228,12 +247,18 @@ public final class GeneralEngine {
         final double[] hc = halfCos;
         final double[] sa = sinA;
         final double[] ca = cosA;
+        final double[] sz = sinZ;
+        final double[] sf = sinF;
+        final double[] s0 = sin0;
         for (int l = 0; l < nl; l++) {
             double c = cosHalf[to + l];
             double s = sinHalf[to + l];
             ca[l] = c * c - s * s;
             hc[l] = 0.5 * ca[l];
             sa[l] = 2 * s * c;
+            sz[l] = sa[l] * scaleZ[l] / scaleF[l];       // Z -> F coupling in stored units
+            sf[l] = 0.5 * sa[l] * scaleF[l] / scaleZ[l]; // F -> Z coupling in stored units
+            s0[l] = sa[l] / scaleF[l];                   // true Z0 -> stored F0
         }
         // k = 0: y = conj(x); z' = sin(a) Im(x) + cos(a) z stays real
         {
@@ -243,9 +268,9 @@ public final class GeneralEngine {
                 double xi = fi[ip + l];
                 double qr = zr[l];
                 double qi = zi[l];
-                fr[ip + l] = xr + sa[l] * qi;
-                fi[ip + l] = ca[l] * xi - sa[l] * qr;
-                zr[l] = sa[l] * xi + ca[l] * qr;
+                fr[ip + l] = xr + s0[l] * qi;
+                fi[ip + l] = ca[l] * xi - s0[l] * qr;
+                zr[l] = sa[l] * scaleF[l] * xi + ca[l] * qr;
                 zi[l] = ca[l] * qi;
             }
         }
@@ -266,16 +291,15 @@ public final class GeneralEngine {
                 double di = xi - yi;
                 double gr = hc[l] * dr;
                 double gi = hc[l] * di;
-                double szr = sa[l] * qr;   // i sin(a) z = (-sa qi, sa qr)
-                double szi = sa[l] * qi;
+                double szr = sz[l] * qr;   // i sin(a) z = (-sa qi, sa qr), in stored units
+                double szi = sz[l] * qi;
                 fr[ip + l] = hr + gr + szi;
                 fi[ip + l] = hi + gi - szr;
                 // F_{-k} = conj(y') with y' = h - g + i sin(a) z
                 fr[im + l] = hr - gr - szi;
                 fi[im + l] = -(hi - gi + szr);
-                double hs = 0.5 * sa[l];
-                zr[iz + l] = hs * di + ca[l] * qr;
-                zi[iz + l] = -hs * dr + ca[l] * qi;
+                zr[iz + l] = sf[l] * di + ca[l] * qr;
+                zi[iz + l] = -sf[l] * dr + ca[l] * qi;
             }
         }
     }

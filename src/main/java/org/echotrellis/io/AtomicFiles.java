@@ -57,6 +57,7 @@ public final class AtomicFiles {
         try {
             Files.createDirectories(dir);
             tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".tmp");
+            readableByAll(tmp);
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16)) {
                 body.write(out);
             }
@@ -76,6 +77,13 @@ public final class AtomicFiles {
                     // best effort clean-up of the temporary file
                 }
             }
+        }
+    }
+
+    /** Temporary files are created owner-only; outputs get the usual rw-r--r-- where POSIX applies. */
+    private static void readableByAll(Path tmp) throws IOException {
+        if (tmp.getFileSystem().supportedFileAttributeViews().contains("posix")) {
+            Files.setPosixFilePermissions(tmp, java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
         }
     }
 

@@ -1,5 +1,7 @@
 package org.echotrellis.design;
 
+import org.echotrellis.sequence.PulseShape;
+
 import java.util.concurrent.TimeUnit;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;

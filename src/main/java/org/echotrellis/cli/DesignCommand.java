@@ -13,7 +13,7 @@ import org.echotrellis.design.DesignReport;
 import org.echotrellis.design.EchoTarget;
 import org.echotrellis.design.ExposureLimits;
 import org.echotrellis.design.Objective;
-import org.echotrellis.design.PulseShape;
+import org.echotrellis.sequence.PulseShape;
 import org.echotrellis.design.RfExposure;
 import org.echotrellis.design.SarReference;
 import org.echotrellis.design.Startup;

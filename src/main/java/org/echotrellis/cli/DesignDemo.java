@@ -9,7 +9,7 @@ import org.echotrellis.design.DesignReport;
 import org.echotrellis.design.ExposureLimits;
 import org.echotrellis.design.IecLimits;
 import org.echotrellis.design.Objective;
-import org.echotrellis.design.PulseShape;
+import org.echotrellis.sequence.PulseShape;
 import org.echotrellis.design.RfExposure;
 import org.echotrellis.epg.CpmgTrain;
 import org.echotrellis.plot.ChartFiles;

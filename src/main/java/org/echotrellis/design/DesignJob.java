@@ -127,7 +127,7 @@ public final class DesignJob {
                 rf.b1rmsUt(exc, flips), rf.b1rmsUt(exc, full),
                 RfExposure.b1PeakUt(maxFlip, rf.refocusShape(), rf.refocusMs()),
                 RfExposure.b1PeakUt(exc, rf.excitationShape(), rf.excitationMs()), sar, limits,
-                limits.allows(rf, exc, flips), rf.refocusShape().spec() + ", " + rf.refocusMs() + " ms", rf.trMs(),
+                limits.allows(rf, exc, flips), rf.refocusShape().label() + ", " + rf.refocusMs() + " ms", rf.trMs(),
                 rf.slices());
     }
 

@@ -1,5 +1,7 @@
 package org.echotrellis.design;
 
+import org.echotrellis.sequence.PulseShape;
+
 import org.echotrellis.Checks;
 
 /**

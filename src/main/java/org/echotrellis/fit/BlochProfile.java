@@ -1,5 +1,7 @@
 package org.echotrellis.fit;
 
+import org.echotrellis.sequence.PulseShape;
+
 /**
  * Bloch simulation of an amplitude-modulated RF pulse across the slice with the Cayley–Klein
  * (spinor) parameters (Pauly, Le Roux, Nishimura &amp; Macovski, "Parameter relations for the

@@ -1,5 +1,7 @@
 package org.echotrellis.fit;
 
+import org.echotrellis.sequence.PulseShape;
+
 import java.nio.file.Path;
 
 import org.echotrellis.Checks;
@@ -53,7 +55,7 @@ public final class SliceProfiles {
             Checks.inRange("--slice-profile TBW", tbw, 1, 32, spec);
             shape = spec.startsWith("sinc:") ? PulseShape.sinc(tbw) : PulseShape.gauss(tbw);
         } else {
-            shape = PulseShape.read(Path.of(spec));
+            shape = PulseShape.fromFile(Path.of(spec), "--slice-profile");
         }
         return simulate(shape, train, positions, ratio);
     }

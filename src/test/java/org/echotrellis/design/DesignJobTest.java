@@ -1,5 +1,7 @@
 package org.echotrellis.design;
 
+import org.echotrellis.sequence.PulseShape;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;

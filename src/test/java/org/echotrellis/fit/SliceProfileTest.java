@@ -1,5 +1,7 @@
 package org.echotrellis.fit;
 
+import org.echotrellis.sequence.PulseShape;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -66,7 +68,7 @@ class SliceProfileTest {
             throws java.io.IOException {
         java.nio.file.Path f = dir.resolve("rect.txt");
         java.nio.file.Files.writeString(f, "# a hard pulse\n" + "2\n".repeat(40));
-        PulseShape shape = PulseShape.read(f);
+        PulseShape shape = PulseShape.fromFile(f, "--slice-profile");
         assertEquals(40, shape.samples().length);
         assertEquals(1.0, shape.samples()[7], 0.0);  // normalised to peak 1
         double a = Math.PI;
@@ -77,7 +79,7 @@ class SliceProfileTest {
         java.nio.file.Path bad = dir.resolve("bad.txt");
         java.nio.file.Files.writeString(bad, "1\n1\nabc\n");
         org.echotrellis.InputException e = org.junit.jupiter.api.Assertions.assertThrows(
-                org.echotrellis.InputException.class, () -> PulseShape.read(bad));
+                org.echotrellis.InputException.class, () -> PulseShape.fromFile(bad, "--slice-profile"));
         assertTrue(e.getMessage().contains("line 3"), e.getMessage());
         org.junit.jupiter.api.Assertions.assertThrows(org.echotrellis.InputException.class,
                 () -> SliceProfiles.parse(dir.resolve("none.txt").toString(), CpmgTrain.constant(8, 10, 180), 8, 1));

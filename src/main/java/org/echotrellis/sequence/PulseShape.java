@@ -1,38 +1,50 @@
-package org.echotrellis.design;
+package org.echotrellis.sequence;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
 
 /**
- * An RF pulse envelope b(t), sampled uniformly over the pulse and normalised to peak |b| = 1.
- * Its area fraction A_f = mean(b) and power fraction P_f = mean(b²) give the B1 amplitude and
- * energy of a pulse of any flip and duration (see {@link RfExposure}).
+ * An RF pulse envelope b(t), real (amplitude-modulated), sampled uniformly over the pulse and
+ * normalised to peak |b| = 1. Used for slice profiles (Bloch simulation across the slice, {@code fit})
+ * and for RF exposure ({@code design}): the area fraction A_f = mean(b) and power fraction
+ * P_f = mean(b²) give the B1 amplitude and energy of a pulse of any flip and duration.
  *
- * <p>Shapes (option {@code --pulse}): {@code rect}; {@code sinc:TBW} — sinc with time-bandwidth
- * product TBW (TBW/2 zero crossings each side) under a Hann window spanning the pulse
- * (Bernstein, King &amp; Zhou, Handbook of MRI Pulse Sequences, 2004, §2.3, from memory);
- * {@code gauss:TBW} — Gaussian truncated to the pulse whose untruncated small-tip profile has
- * a full width at half maximum of TBW/duration; {@code file:PATH} — samples of the envelope,
- * one number per entry (white space, commas or new lines; {@code #} starts a comment).
+ * <p>Shapes: {@code rect}; {@code sinc:TBW} — sinc with time-bandwidth product TBW (TBW/2 zero
+ * crossings each side) under a Hann window spanning the pulse (common practice; Bernstein, King
+ * &amp; Zhou, Handbook of MRI Pulse Sequences, 2004, §2.3, from memory); {@code gauss:TBW} — a
+ * Gaussian truncated to the pulse whose untruncated spectrum has a full width at half maximum of
+ * TBW/duration (Fourier pair of a Gaussian); {@code file:PATH} — samples of the envelope, one or more
+ * numbers per line (white space, commas or semicolons; {@code #} starts a comment).
  *
- * @param spec option syntax, for reports
- * @param samples envelope samples, peak |b| = 1 (copied)
+ * @param label the shape as written, e.g. {@code sinc:4}
+ * @param samples envelope samples (copied and normalised to peak magnitude 1)
  */
-public record PulseShape(String spec, double[] samples) {
-    private static final int SAMPLES = 4000;
+public record PulseShape(String label, double[] samples) {
+    /** Samples of the built-in shapes (midpoint rule; A_f and P_f accurate to about 1e-7). */
+    public static final int SAMPLES = 4000;
 
-    /** Copies the samples and checks that the area is not zero. */
+    /** Copies, normalises to peak magnitude 1 and checks that the envelope can produce a flip. */
     public PulseShape {
-        samples = samples.clone();
-        Checks.require(samples.length >= 2, "--pulse " + spec + ": needs at least 2 samples");
-        Checks.require(Math.abs(mean(samples)) > 1e-6, "--pulse " + spec
+        Checks.require(samples != null && samples.length >= 2, "pulse shape " + label + " needs at least 2 samples");
+        double peak = 0;
+        for (double v : samples) {
+            Checks.require(Double.isFinite(v), "pulse shape " + label + ": every sample must be a finite number");
+            peak = Math.max(peak, Math.abs(v));
+        }
+        Checks.require(peak > 0, "pulse shape " + label + ": every sample is zero");
+        double[] c = samples.clone();
+        for (int i = 0; i < c.length; i++) {
+            c[i] /= peak;
+        }
+        samples = c;
+        Checks.require(Math.abs(mean(samples)) > 1e-6, "pulse shape " + label
                 + ": the envelope has (almost) zero area, so it cannot produce a flip");
     }
 
@@ -60,9 +72,12 @@ public record PulseShape(String spec, double[] samples) {
         return new PulseShape("rect", new double[] {1, 1});
     }
 
-    /** @param tbw time-bandwidth product (> 0, ≤ 64) @return Hann-windowed sinc */
+    /**
+     * @param tbw time-bandwidth product (&gt; 0, &le; 64)
+     * @return the Hann-windowed sinc b(t) = sinc(TBW (t &minus; ½)) (½ + ½ cos 2&pi;(t &minus; ½)), t in [0, 1]
+     */
     public static PulseShape sinc(double tbw) {
-        Checks.inRange("--pulse sinc time-bandwidth product", tbw, 1e-3, 64, null);
+        Checks.inRange("sinc time-bandwidth product", tbw, 1e-3, 64, null);
         double[] b = new double[SAMPLES];
         for (int i = 0; i < SAMPLES; i++) {
             double x = (i + 0.5) / SAMPLES - 0.5;
@@ -70,19 +85,22 @@ public record PulseShape(String spec, double[] samples) {
             double sinc = arg == 0 ? 1 : Math.sin(arg) / arg;
             b[i] = sinc * 0.5 * (1 + Math.cos(2 * Math.PI * x));
         }
-        return normalised("sinc:" + trim(tbw), b);
+        return new PulseShape("sinc:" + trim(tbw), b);
     }
 
-    /** @param tbw time-bandwidth product (> 0, ≤ 64) @return truncated Gaussian */
+    /**
+     * @param tbw time-bandwidth product (&gt; 0, &le; 64)
+     * @return the truncated Gaussian b(t) = exp(&minus;(t &minus; ½)²/(2s²)), s = &radic;(2 ln 2)/(&pi; TBW)
+     */
     public static PulseShape gauss(double tbw) {
-        Checks.inRange("--pulse gauss time-bandwidth product", tbw, 1e-3, 64, null);
+        Checks.inRange("gauss time-bandwidth product", tbw, 1e-3, 64, null);
         double sigma = Math.sqrt(2 * Math.log(2)) / (Math.PI * tbw); // in units of the duration
         double[] b = new double[SAMPLES];
         for (int i = 0; i < SAMPLES; i++) {
             double x = (i + 0.5) / SAMPLES - 0.5;
             b[i] = Math.exp(-x * x / (2 * sigma * sigma));
         }
-        return normalised("gauss:" + trim(tbw), b);
+        return new PulseShape("gauss:" + trim(tbw), b);
     }
 
     /**
@@ -103,7 +121,7 @@ public record PulseShape(String spec, double[] samples) {
             } else if (s.startsWith("gauss:")) {
                 return gauss(Double.parseDouble(s.substring(6)));
             } else if (s.startsWith("file:") && s.length() > 5) {
-                return fromFile(Path.of(s.substring(5)));
+                return fromFile(Path.of(s.substring(5)), option);
             }
         } catch (NumberFormatException e) {
             throw new InputException(option + " " + spec + ": TBW must be a number; " + allowed);
@@ -111,13 +129,21 @@ public record PulseShape(String spec, double[] samples) {
         throw new InputException(option + " " + spec + " is not a known pulse shape; " + allowed);
     }
 
-    /** Reads envelope samples from a text file. @param file path @return the shape */
-    public static PulseShape fromFile(Path file) {
+    /**
+     * Reads envelope samples from a text file.
+     *
+     * @param file path
+     * @param option option name for messages
+     * @return the shape, labelled with the file name
+     */
+    public static PulseShape fromFile(Path file, String option) {
         List<String> lines;
         try {
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);
-        } catch (IOException e) {
-            throw new InputException("--pulse file: cannot read " + file + " (" + e.getMessage() + ")", e);
+        } catch (NoSuchFileException e) {
+            throw new InputException(option + " " + file + ": file not found");
+        } catch (IOException | RuntimeException e) {
+            throw new InputException(option + " " + file + ": cannot read (" + e.getMessage() + ")", e);
         }
         List<Double> values = new ArrayList<>();
         for (int i = 0; i < lines.size(); i++) {
@@ -130,9 +156,9 @@ public record PulseShape(String spec, double[] samples) {
                     try {
                         v = Double.parseDouble(tok);
                     } catch (NumberFormatException e) {
-                        throw new InputException(file + " line " + (i + 1) + ": '" + tok + "' is not a number");
+                        throw new InputException(file + " line " + (i + 1) + ": pulse amplitude must be a number, got '" + tok + "'");
                     }
-                    Checks.finite("pulse sample", v, file + " line " + (i + 1));
+                    Checks.finite("pulse amplitude", v, file + " line " + (i + 1));
                     values.add(v);
                 }
             }
@@ -141,20 +167,8 @@ public record PulseShape(String spec, double[] samples) {
         for (int i = 0; i < b.length; i++) {
             b[i] = values.get(i);
         }
-        Checks.require(b.length >= 2, "--pulse file:" + file + " holds " + b.length + " samples; at least 2 are needed");
-        return normalised("file:" + file, b);
-    }
-
-    private static PulseShape normalised(String spec, double[] b) {
-        double peak = 0;
-        for (double v : b) {
-            peak = Math.max(peak, Math.abs(v));
-        }
-        Checks.require(peak > 0, "--pulse " + spec + ": every sample is zero");
-        for (int i = 0; i < b.length; i++) {
-            b[i] /= peak;
-        }
-        return new PulseShape(spec, b);
+        Checks.require(b.length >= 2, option + " " + file + " holds " + b.length + " samples; at least 2 are needed");
+        return new PulseShape(file.getFileName().toString(), b);
     }
 
     private static double mean(double[] v) {

@@ -26,13 +26,7 @@ final class PathwayReport {
     }
 
     static Map<String, Object> json(Protocol p, ClassDecomposition d, TopPathways tp) {
-        Map<String, Object> root = new LinkedHashMap<>();
-        root.put("protocol", p.name());
-        Map<String, Object> tissue = new LinkedHashMap<>();
-        tissue.put("t1_ms", p.tissue().t1Ms());
-        tissue.put("t2_ms", p.tissue().t2Ms());
-        root.put("tissue", tissue);
-        root.put("b1", p.b1Scale());
+        Map<String, Object> root = Tables.protocolJson(p);
         List<Map<String, Object>> echoes = new ArrayList<>();
         for (int e = 0; e < d.echoCount(); e++) {
             Map<String, Object> m = new LinkedHashMap<>();

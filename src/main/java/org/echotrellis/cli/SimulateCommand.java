@@ -116,24 +116,21 @@ public final class SimulateCommand implements Callable<Integer> {
     }
 
     private Map<String, Object> json(Protocol p, EchoTrain train) {
-        Map<String, Object> root = new LinkedHashMap<>();
-        root.put("protocol", p.name());
+        Map<String, Object> root = Tables.protocolJson(p);
         root.put("engine", p.cpmg().isPresent() ? "cpmg" : "general");
-        Map<String, Object> tissue = new LinkedHashMap<>();
-        tissue.put("t1_ms", p.tissue().t1Ms());
-        tissue.put("t2_ms", p.tissue().t2Ms());
-        root.put("tissue", tissue);
-        root.put("b1", p.b1Scale());
         List<Map<String, Object>> echoes = new ArrayList<>();
+        double[] times = train.timesMs();
+        double[] re = train.re();
+        double[] im = train.im();
         for (int i = 0; i < train.size(); i++) {
             Map<String, Object> e = new LinkedHashMap<>();
             e.put("index", i + 1);
             e.put("label", train.labels().get(i));
-            e.put("time_ms", train.timesMs()[i]);
+            e.put("time_ms", times[i]);
             e.put("magnitude", train.magnitude(i));
             e.put("phase_deg", train.phaseDeg(i));
-            e.put("real", train.re()[i]);
-            e.put("imag", train.im()[i]);
+            e.put("real", re[i]);
+            e.put("imag", im[i]);
             echoes.add(e);
         }
         root.put("echoes", echoes);

@@ -15,6 +15,18 @@ final class Tables {
         return v == Math.rint(v) && Math.abs(v) < 1e12 ? Long.toString((long) v) : String.format(Locale.ROOT, "%.6g", v);
     }
 
+    /** The leading JSON fields every per-protocol report shares: protocol name, tissue and B1. */
+    static java.util.Map<String, Object> protocolJson(Protocol p) {
+        java.util.Map<String, Object> root = new java.util.LinkedHashMap<>();
+        root.put("protocol", p.name());
+        java.util.Map<String, Object> tissue = new java.util.LinkedHashMap<>();
+        tissue.put("t1_ms", p.tissue().t1Ms());
+        tissue.put("t2_ms", p.tissue().t2Ms());
+        root.put("tissue", tissue);
+        root.put("b1", p.b1Scale());
+        return root;
+    }
+
     static String echoTable(Protocol p, EchoTrain t) {
         StringBuilder sb = new StringBuilder();
         sb.append(String.format(Locale.ROOT, "# %s  (T1 %s ms, T2 %s ms, B1 %.3f, engine %s)%n", p.name(),
@@ -26,9 +38,12 @@ final class Tables {
         String head = "%5s  %-" + lw + "s  %10s  %10s  %10s  %11s  %11s%n";
         sb.append(String.format(Locale.ROOT, head, "echo", "label", "time_ms", "magnitude", "phase_deg", "real", "imag"));
         String row = "%5d  %-" + lw + "s  %10.3f  %10.6f  %10.3f  %11.7f  %11.7f%n";
+        double[] times = t.timesMs();
+        double[] re = t.re();
+        double[] im = t.im();
         for (int i = 0; i < t.size(); i++) {
-            sb.append(String.format(Locale.ROOT, row, i + 1, t.labels().get(i), t.timesMs()[i], t.magnitude(i),
-                    t.phaseDeg(i), t.re()[i], t.im()[i]));
+            sb.append(String.format(Locale.ROOT, row, i + 1, t.labels().get(i), times[i], t.magnitude(i),
+                    t.phaseDeg(i), re[i], im[i]));
         }
         return sb.toString();
     }

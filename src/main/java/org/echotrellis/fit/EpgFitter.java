@@ -67,7 +67,6 @@ final class EpgFitter {
     private double[] y;
     private int off;
     private double fixedB1;
-    private double amplitude;
     private final boolean foldActive;
     private final double b1HiFit;
     private int lastIterations;
@@ -145,7 +144,7 @@ final class EpgFitter {
         if (!(cost < Double.POSITIVE_INFINITY)) {
             return VoxelStatus.INVALID_INPUT;
         }
-        double amp = amplitude;
+        double amp = varPro.amplitudeFor(lm.residuals());
         lastIterations = lm.iterations();
         int p = free ? 2 : 1;
         boolean converged = lm.converged();
@@ -264,8 +263,35 @@ final class EpgFitter {
         return Math.sqrt(ff);
     }
 
-    /** Least squares with the amplitude projected out; x = (ln T2[, B1]). */
+    /**
+     * Least squares with the amplitude projected out; x = (ln T2[, B1]). The solver evaluates
+     * trial points it may reject, so the amplitude of each evaluation is kept with the residual
+     * buffer it was written to: the solver alternates two buffers and returns the accepted one.
+     */
     private final class VarPro implements SmallLeastSquares.Problem {
+        private double[] key0;
+        private double[] key1;
+        private double amp0 = Double.NaN;
+        private double amp1 = Double.NaN;
+
+        /** @return the amplitude of the evaluation that wrote the residuals r (NaN if none did) */
+        double amplitudeFor(double[] r) {
+            return r == key0 ? amp0 : r == key1 ? amp1 : Double.NaN;
+        }
+
+        private void remember(double[] r, double a) {
+            if (r == key0) {
+                amp0 = a;
+            } else if (r == key1) {
+                amp1 = a;
+            } else {
+                key1 = key0;
+                amp1 = amp0;
+                key0 = r;
+                amp0 = a;
+            }
+        }
+
         @Override
         public double evaluate(double[] x, double[] r, double[] jac) {
             boolean free = x.length == 2;
@@ -289,10 +315,11 @@ final class EpgFitter {
                 gBd += g[i] * gB[i];
             }
             if (!(gg > 0)) {
+                remember(r, Double.NaN);
                 return Double.POSITIVE_INFINITY;
             }
             double a = gy / gg;
-            amplitude = a;
+            remember(r, a);
             double daT = (tY - 2 * a * gTd) / gg;
             double daB = (bY - 2 * a * gBd) / gg;
             double cost = 0;

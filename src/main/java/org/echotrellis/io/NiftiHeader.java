@@ -310,7 +310,8 @@ public final class NiftiHeader {
 
     /**
      * Decodes and checks a header: sizeof_hdr 348 in either byte order, magic "n+1\0", rank 1..7,
-     * positive sizes, a supported datatype with matching bitpix, vox_offset ≥ 352, finite scaling.
+     * positive sizes whose product fits (at most 2^31−1 volumes beyond dim 3), a supported datatype
+     * with matching bitpix, vox_offset ≥ 352, finite scaling.
      *
      * @param raw at least 348 bytes from the start of the file
      * @param where file name for messages
@@ -354,6 +355,20 @@ public final class NiftiHeader {
         int bitpix = b.getShort(72);
         if (bitpix != type.bitpix()) {
             throw new InputException(where + ": bitpix " + bitpix + " does not match datatype " + type + " (" + type.bitpix() + ")");
+        }
+        long volumes = 1;
+        for (int i = 4; i <= 7; i++) {
+            volumes *= d[i];  // at most 32767^4, no long overflow
+        }
+        boolean fits = volumes <= Integer.MAX_VALUE;
+        try {
+            Math.multiplyExact(Math.multiplyExact((long) d[1] * d[2] * d[3], volumes), type.bytes());
+        } catch (ArithmeticException e) {
+            fits = false;
+        }
+        if (!fits) {
+            throw new InputException(where + ": dims " + d[1] + "x" + d[2] + "x" + d[3] + "x" + d[4] + "x" + d[5] + "x" + d[6]
+                    + "x" + d[7] + " declare more values than can be read (at most 2^31-1 volumes beyond dim 3)");
         }
         float[] p = new float[8];
         for (int i = 0; i < 8; i++) {

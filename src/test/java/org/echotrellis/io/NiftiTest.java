@@ -181,6 +181,27 @@ class NiftiTest {
         assertTrue(assertThrows(InputException.class, () -> Nifti.read(m)).getMessage().contains("magic"));
     }
 
+    @Test
+    void refusesAHeaderWhoseValueCountOverflows() throws IOException {
+        // nifti1.h: the data hold dim[1]·…·dim[dim[0]] values. Dims 4..6 of 2048·2048·1024 declare
+        // 2^32 volumes of float32; a file that carries none of them must not read as an empty image.
+        Path f = dir.resolve("o.nii");
+        Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT32, 1), new double[1], false);
+        byte[] raw = Files.readAllBytes(f);
+        ByteBuffer b = ByteBuffer.wrap(raw).order(ByteOrder.LITTLE_ENDIAN);
+        short[] dims = {6, 1, 1, 1, 2048, 2048, 1024};
+        for (int i = 0; i < dims.length; i++) {
+            b.putShort(40 + 2 * i, dims[i]);
+        }
+        Path p = dir.resolve("overflow.nii");
+        Files.write(p, raw);
+        InputException e = assertThrows(InputException.class, () -> Nifti.open(p).close());
+        assertTrue(e.getMessage().contains("overflow.nii"), e.getMessage());
+        Path g = dir.resolve("overflow.nii.gz");
+        Files.write(g, gzip(raw));
+        assertThrows(InputException.class, () -> Nifti.open(g).close());
+    }
+
     private void assertBad(byte[] raw, int offset, short value, String expect) throws IOException {
         byte[] c = raw.clone();
         ByteBuffer.wrap(c).order(ByteOrder.LITTLE_ENDIAN).putShort(offset, value);

@@ -43,9 +43,9 @@ import picocli.CommandLine.Spec;
             "(and mono_t2_ms) as .nii.gz maps, PNG previews and summary.json in --out.",
             "Status: 0 outside mask, 1 ok, 2 hit bound, 3 low signal, 4 invalid input,",
             "5 not converged.",
-            "B1 is reported folded (refocusing angle <= 180 deg) for constant trains:",
-            "B1 = 1 + x and 1 - x give the same magnitude train. Near B1 = 1 the B1",
-            "estimate is weak; see b1_se."})
+            "B1 is reported folded (refocusing angle <= 180 deg) for constant trains",
+            "without --slice-profile: B1 = 1 + x and 1 - x give the same magnitude",
+            "train. Near B1 = 1 the B1 estimate is weak; see b1_se."})
 public final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;

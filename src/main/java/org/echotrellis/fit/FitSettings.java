@@ -74,20 +74,17 @@ public record FitSettings(CpmgTrain train, double t1Ms, double t2MinMs, double t
     }
 
     /**
-     * The B1 upper bound used by the fit: with folding and a constant refocusing flip α, the
-     * smaller of b1Max and 180°/α (the largest refocusing factor of the profile included).
+     * The B1 upper bound used by the fit: with folding, a constant refocusing flip α and no slice
+     * profile, the smaller of b1Max and 180°/α. With a slice profile each position folds at its own
+     * B1 = 180°/(f·α), so the summed train is not symmetric about any one B1 and is not folded.
      *
      * @return the effective upper bound
      */
     public double effectiveB1Max() {
-        if (!fold || !constantRefocusing()) {
+        if (!fold || !constantRefocusing() || profile.positions() > 1) {
             return b1Max;
         }
-        double maxFactor = 0;
-        for (double f : profile.refocusingFactors()) {
-            maxFactor = Math.max(maxFactor, f);
-        }
-        double limit = 180.0 / (train.refocusFlipDeg(0) * maxFactor);
+        double limit = 180.0 / (train.refocusFlipDeg(0) * profile.refocusingFactors()[0]);
         return Math.max(b1Min * 1.0001, Math.min(b1Max, limit));
     }
 

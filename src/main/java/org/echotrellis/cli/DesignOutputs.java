@@ -10,6 +10,7 @@ import org.echotrellis.design.DesignProblem;
 import org.echotrellis.design.DesignReport;
 import org.echotrellis.design.ExposureSummary;
 import org.echotrellis.design.IecLimits;
+import org.echotrellis.design.RfExposure;
 import org.echotrellis.design.ScheduleFile;
 import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
@@ -168,8 +169,9 @@ final class DesignOutputs {
                 + "budget %s: %s.%n", x.relativeSar(), x.relativeSarWithExcitation(), g(x.limits().sarBudget()),
                 x.withinLimits() ? "limits met" : "LIMITS EXCEEDED"));
         if (!Double.isNaN(x.b1rmsUt())) {
-            sb.append(String.format(Locale.ROOT, "B1+rms: %.3f µT over TR %s ms with %d train(s) per TR (all-180° train: %.3f µT)%s.%n",
-                    x.b1rmsUt(), Tables.num(x.trMs()), x.slices(), x.b1rms180Ut(), x.limits().hasB1rmsLimit()
+            sb.append(String.format(Locale.ROOT, "B1+rms: %.3f µT over TR %s ms%s with %d train(s) per TR (all-180° train: %.3f µT)%s.%n",
+                    x.b1rmsUt(), Tables.num(x.trMs()), x.trMs() > RfExposure.B1RMS_WINDOW_MS
+                            ? " (averaged over the 10 s window)" : "", x.slices(), x.b1rms180Ut(), x.limits().hasB1rmsLimit()
                             ? String.format(Locale.ROOT, "; limit %s µT", g(x.limits().b1rmsLimitUt())) : ""));
         } else {
             sb.append("B1+rms: give --tr-ms (and --slices) to compute it.\n");

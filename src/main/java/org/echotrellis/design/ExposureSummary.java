@@ -11,7 +11,7 @@ import java.util.Map;
  *
  * @param relativeSar refocusing-train SAR relative to the all-180° train
  * @param relativeSarWithExcitation the same with the excitation pulse counted
- * @param b1rmsUt B1+rms over TR in µT (NaN without TR)
+ * @param b1rmsUt B1+rms over TR (over 10 s when TR is longer) in µT (NaN without TR)
  * @param b1rms180Ut B1+rms of the all-180° train (NaN without TR)
  * @param maxRefocusB1PeakUt largest refocusing B1 peak in µT
  * @param excitationB1PeakUt excitation B1 peak in µT

@@ -13,8 +13,10 @@ import org.echotrellis.Checks;
  * B1,peak = α/(γ·τ·A_f) and deposits ∫B1²dt = B1,peak²·P_f·τ = α²·P_f/(γ²·A_f²·τ). For a fixed
  * shape and duration the energy, and so SAR, scales with α² (SAR ∝ B0²·α²/τ; e.g. Bernstein,
  * King &amp; Zhou 2004, from memory). B1+rms = √((1/T)·∫|B1+(t)|²dt) over the averaging window
- * (McRobbie, Essentials of MRI Safety, 2020); for a periodic sequence with TR below the 10 s
- * window this equals the average over one TR. γ/2π = 42.577 MHz/T (CODATA 2014: 42.577 478 92).
+ * (McRobbie, Essentials of MRI Safety, 2020), T = {@value #B1RMS_WINDOW_MS} ms; for a periodic sequence
+ * with TR below that window this equals the average over one TR, and with a longer TR the worst window
+ * holds (at most) one TR's pulses, so the energy of one TR is divided by T instead — an upper bound,
+ * exact when the pulses of one TR fit in 10 s. γ/2π = 42.577 MHz/T (CODATA 2014: 42.577 478 92).
  *
  * <p>Relative SAR here counts the refocusing pulses: Σα_i²/(N·180²) for pulses of one shape
  * and duration; {@link #relativeSarWithExcitation} also counts the excitation.
@@ -30,6 +32,8 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
                          double trMs, int slices) {
     /** Proton gyromagnetic ratio γ/2π in Hz/T (CODATA 2014, rounded to 42.577 MHz/T). */
     public static final double GAMMA_BAR_HZ_PER_T = 42.577e6;
+    /** Averaging window of B1+rms in ms (10 s; McRobbie 2020, IEC 60601-2-33). */
+    public static final double B1RMS_WINDOW_MS = 10_000;
 
     /** Validates durations, TR and slice count. */
     public RfExposure {
@@ -93,7 +97,8 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
     }
 
     /**
-     * B1+rms over one TR with {@link #slices()} trains per TR, excitation included.
+     * B1+rms with {@link #slices()} trains per TR, excitation included, averaged over one TR or over the
+     * 10 s window when TR is longer (the energy of one TR then falls within the worst window).
      *
      * @return B1+rms in µT, or NaN when no TR is known
      */
@@ -101,7 +106,8 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
         if (!hasTr()) {
             return Double.NaN;
         }
-        return Math.sqrt(slices * trainEnergyUt2s(excitationFlipDeg, flipsDeg) / (trMs * 1e-3));
+        double windowMs = Math.min(trMs, B1RMS_WINDOW_MS);
+        return Math.sqrt(slices * trainEnergyUt2s(excitationFlipDeg, flipsDeg) / (windowMs * 1e-3));
     }
 
     /** @return mean RF power measure Σ∫B1²dt / TR in µT² (NaN without TR) */

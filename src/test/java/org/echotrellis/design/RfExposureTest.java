@@ -76,6 +76,22 @@ class RfExposureTest {
     }
 
     @Test
+    void b1rmsAveragesOverTenSecondsWhenTrIsLonger() {
+        // B1+rms = √((1/T)·∫|B1+|²dt) with T = 10 s, the sliding averaging window (McRobbie, Essentials of
+        // MRI Safety, 2020; IEC 60601-2-33 via METHODS §6). With TR ≥ 10 s the worst window holds the
+        // whole train, so for 17 rectangular 180° pulses of 1 ms: B1·√(17·1 ms / 10 s), whatever the TR.
+        double b1 = RfExposure.b1PeakUt(180, PulseShape.rect(), 1.0);
+        double expected = b1 * Math.sqrt(17 * 1e-3 / 10.0);
+        for (double trMs : new double[] {10_000, 20_000, 60_000}) {
+            RfExposure rf = new RfExposure(PulseShape.rect(), 1.0, PulseShape.rect(), 1.0, trMs, 1);
+            assertEquals(expected, rf.b1rmsUt(180, filled(16, 180)), 1e-12, "TR " + trMs + " ms");
+        }
+        // below 10 s the periodic train averages over one TR, as before: B1·√(17·1 ms / 5 s)
+        RfExposure rf5 = new RfExposure(PulseShape.rect(), 1.0, PulseShape.rect(), 1.0, 5000, 1);
+        assertEquals(b1 * Math.sqrt(17 * 1e-3 / 5.0), rf5.b1rmsUt(180, filled(16, 180)), 1e-12);
+    }
+
+    @Test
     void b1rmsMultiSliceExample() {
         // METHODS §6 example (evaluated from the B1+rms definition, McRobbie 2020): 20 slices × (90° +
         // 16 × 180°) Hann-sinc TBW 4, 2.56 ms, TR 4 s → 3.69 µT; with 120° refocusing → 2.48 µT

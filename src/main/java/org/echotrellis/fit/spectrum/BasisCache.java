@@ -68,6 +68,10 @@ public final class BasisCache {
             ref = Math.max(ref, train.refocusFlipDeg(i));
         }
         Checks.require(ref > 0, "the protocol's refocusing flips are all 0°");
+        Checks.require(Math.abs(Math.sin(Math.toRadians(train.excitationFlipDeg()))) > 1e-6,
+                "the protocol's excitation flip " + train.excitationFlipDeg()
+                        + "° tips no magnetisation into the transverse plane; spectrum fitting needs an excitation "
+                        + "between 0° and 180° (exclusive), e.g. 90°");
         Builder b = new Builder(train, t1Ms, grid, ref);
         int m = train.echoes();
         int n = grid.bins();

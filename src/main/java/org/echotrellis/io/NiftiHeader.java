@@ -311,7 +311,8 @@ public final class NiftiHeader {
     /**
      * Decodes and checks a header: sizeof_hdr 348 in either byte order, magic "n+1\0", rank 1..7,
      * positive sizes whose product fits (at most 2^31−1 volumes beyond dim 3), a supported datatype
-     * with matching bitpix, vox_offset ≥ 352, finite scaling.
+     * with matching bitpix, vox_offset ≥ 352. Non-finite scl_slope/scl_inter read as 0 (slope 0:
+     * unscaled).
      *
      * @param raw at least 348 bytes from the start of the file
      * @param where file name for messages
@@ -379,11 +380,10 @@ public final class NiftiHeader {
             throw new InputException(where + ": vox_offset must be a finite number >= 352, got " + off);
         }
         long voxOffset = Math.max(MIN_VOX_OFFSET, (long) off);
-        double slope = b.getFloat(112);
-        double inter = b.getFloat(116);
-        if (!Double.isFinite(slope) || !Double.isFinite(inter)) {
-            throw new InputException(where + ": scl_slope/scl_inter must be finite, got " + slope + ", " + inter);
-        }
+        // non-finite scaling fields (NaN is what writers leave when they do not scale) read as 0,
+        // and scl_slope = 0 means unscaled (nifti1.h)
+        double slope = finiteOrZero(b.getFloat(112));
+        double inter = finiteOrZero(b.getFloat(116));
         int units = raw[123] & 0xff;
         int end = 148;
         while (end < 228 && raw[end] != 0) {
@@ -400,6 +400,10 @@ public final class NiftiHeader {
         }
         return new NiftiHeader(d, p, type, voxOffset, slope, inter, units, b.getShort(252), b.getShort(254), q, s,
                 text, b.order());
+    }
+
+    private static double finiteOrZero(float v) {
+        return Float.isFinite(v) ? v : 0.0;
     }
 
     @Override

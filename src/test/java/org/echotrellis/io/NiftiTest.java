@@ -202,6 +202,28 @@ class NiftiTest {
         assertThrows(InputException.class, () -> Nifti.open(g).close());
     }
 
+    @Test
+    void nonFiniteScalingReadsAsUnscaled() throws IOException {
+        // nifti1.h: scl_slope = 0 means the stored values are used as they are. Writers leave NaN
+        // in both fields when they store float data without scaling (nibabel's default header,
+        // from memory), and the NIfTI reference library maps non-finite scl_slope/scl_inter to 0
+        // (nifti1_io.c, from memory): such a file must read, unscaled, not be refused.
+        Path f = dir.resolve("s.nii");
+        Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT32, 3), new double[] {1.5, -2, 7}, false);
+        byte[] raw = Files.readAllBytes(f);
+        ByteBuffer b = ByteBuffer.wrap(raw).order(ByteOrder.LITTLE_ENDIAN);
+        b.putFloat(112, Float.NaN);
+        b.putFloat(116, Float.NaN);
+        Path p = dir.resolve("nan-scaling.nii");
+        Files.write(p, raw);
+        NiftiImage img = Nifti.read(p);
+        assertEquals(false, img.header().isScaled());
+        assertArrayEquals(new double[] {1.5, -2, 7}, img.values(), 0.0);
+        b.putFloat(112, 2f);   // a real slope with a NaN intercept: intercept 0
+        Files.write(p, raw);
+        assertArrayEquals(new double[] {3, -4, 14}, Nifti.read(p).values(), 0.0);
+    }
+
     private void assertBad(byte[] raw, int offset, short value, String expect) throws IOException {
         byte[] c = raw.clone();
         ByteBuffer.wrap(c).order(ByteOrder.LITTLE_ENDIAN).putShort(offset, value);

@@ -16,7 +16,8 @@ import org.echotrellis.io.VoxelStatus;
  * the train is smooth and not flat, and converges quadratically right up to the fold; (3) with a
  * noise σ, refine (A, ln T2, B1) on the Rician mean E[M](A·g, σ) ({@link Rician}), so late echoes
  * on the noise floor do not lengthen T2; (4) Cramér–Rao standard errors ({@link Covariance}) from
- * the amplitude-projected Jacobian and the residual variance.
+ * the amplitude-projected Jacobian and the residual variance (with a noise σ: the larger of σ² and
+ * the residual variance).
  *
  * <p>Allocation-free per decay after construction.
  */
@@ -168,7 +169,12 @@ final class EpgFitter {
             amp = x[0];
             lnT2 = x[1];
             b1 = free ? toB1(x[2]) : fixedB1;
-            s2 = cost / Math.max(1, n - p - 1);
+            // Echoes on the noise floor have a magnitude variance below sigma^2 (Rayleigh: 0.43
+            // sigma^2) but carry little information (dE[M]/dnu -> 0 as nu -> 0), so the residual variance
+            // underestimates the variance of the informative echoes: use the known sigma^2 unless
+            // the misfit is larger.
+            double sigma = settings.noiseSigma();
+            s2 = Math.max(sigma * sigma, cost / Math.max(1, n - p - 1));
             (free ? cov3 : cov2).standardErrors(lr.jacobian(), n, s2, modelNorm(lr.residuals()), se);
             seLnT2 = se[1];
             seB1 = free ? se[2] * Math.abs(dB1(x[2])) : Double.NaN;

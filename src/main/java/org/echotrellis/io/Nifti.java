@@ -22,7 +22,8 @@ import org.echotrellis.InputException;
  * gzip-compressed, RFC 1952), following {@code nifti1.h} (R. W. Cox, NIH DFWG 2003/2007).
  * Compression is detected from the leading bytes 0x1f 0x8b on reading and from the
  * {@code .gz} extension on writing. Inflation is bounded: a stream that would inflate beyond
- * vox_offset plus the data size declared by its header is refused, never inflated unbounded.
+ * vox_offset plus the data size declared by its header is refused, never inflated unbounded, and a
+ * declared size larger than the free space of the temporary directory is refused up front.
  */
 public final class Nifti {
     private static final int CHUNK = 1 << 16;
@@ -78,8 +79,13 @@ public final class Nifti {
                 OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
             byte[] hb = in.readNBytes(NiftiHeader.HEADER_SIZE);
             NiftiHeader h = NiftiHeader.decode(hb, where);
-            out.write(hb);
             long need = h.voxOffset() + h.dataBytes();
+            long free = Files.getFileStore(tmp).getUsableSpace();
+            if (need > free) {
+                throw new InputException(where + ": header declares " + need + " bytes, more than the " + free
+                        + " bytes free for its inflated temporary copy; refused");
+            }
+            out.write(hb);
             long have = hb.length;
             byte[] buf = new byte[CHUNK];
             while (have < need) {

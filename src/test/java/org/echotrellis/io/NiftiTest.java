@@ -224,6 +224,26 @@ class NiftiTest {
         assertArrayEquals(new double[] {3, -4, 14}, Nifti.read(p).values(), 0.0);
     }
 
+    @Test
+    void refusesGzipWhoseDeclaredSizeExceedsTheSpaceForItsInflatedCopy() throws IOException {
+        // The inflation bound is the header's declared size; a header that declares 32767^3
+        // float64 voxels (about 2.8e14 bytes, more than this disk) must be refused before
+        // inflating, or a stream of zeros behind it fills the disk up to that bound.
+        Path f = dir.resolve("big.nii");
+        Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT64, 1), new double[1], false);
+        byte[] raw = Files.readAllBytes(f);
+        ByteBuffer b = ByteBuffer.wrap(raw).order(ByteOrder.LITTLE_ENDIAN);
+        short[] dims = {3, 32767, 32767, 32767};
+        for (int i = 0; i < dims.length; i++) {
+            b.putShort(40 + 2 * i, dims[i]);
+        }
+        byte[] padded = java.util.Arrays.copyOf(raw, raw.length + (1 << 16));
+        Path g = dir.resolve("big.nii.gz");
+        Files.write(g, gzip(padded));
+        InputException e = assertThrows(InputException.class, () -> Nifti.open(g).close());
+        assertTrue(e.getMessage().contains("free"), e.getMessage());
+    }
+
     private void assertBad(byte[] raw, int offset, short value, String expect) throws IOException {
         byte[] c = raw.clone();
         ByteBuffer.wrap(c).order(ByteOrder.LITTLE_ENDIAN).putShort(offset, value);

@@ -187,12 +187,7 @@ class NiftiTest {
         // 2^32 volumes of float32; a file that carries none of them must not read as an empty image.
         Path f = dir.resolve("o.nii");
         Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT32, 1), new double[1], false);
-        byte[] raw = Files.readAllBytes(f);
-        ByteBuffer b = ByteBuffer.wrap(raw).order(ByteOrder.LITTLE_ENDIAN);
-        short[] dims = {6, 1, 1, 1, 2048, 2048, 1024};
-        for (int i = 0; i < dims.length; i++) {
-            b.putShort(40 + 2 * i, dims[i]);
-        }
+        byte[] raw = withDims(Files.readAllBytes(f), 6, 1, 1, 1, 2048, 2048, 1024);
         Path p = dir.resolve("overflow.nii");
         Files.write(p, raw);
         InputException e = assertThrows(InputException.class, () -> Nifti.open(p).close());
@@ -231,17 +226,21 @@ class NiftiTest {
         // inflating, or a stream of zeros behind it fills the disk up to that bound.
         Path f = dir.resolve("big.nii");
         Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT64, 1), new double[1], false);
-        byte[] raw = Files.readAllBytes(f);
-        ByteBuffer b = ByteBuffer.wrap(raw).order(ByteOrder.LITTLE_ENDIAN);
-        short[] dims = {3, 32767, 32767, 32767};
-        for (int i = 0; i < dims.length; i++) {
-            b.putShort(40 + 2 * i, dims[i]);
-        }
+        byte[] raw = withDims(Files.readAllBytes(f), 3, 32767, 32767, 32767);
         byte[] padded = java.util.Arrays.copyOf(raw, raw.length + (1 << 16));
         Path g = dir.resolve("big.nii.gz");
         Files.write(g, gzip(padded));
         InputException e = assertThrows(InputException.class, () -> Nifti.open(g).close());
         assertTrue(e.getMessage().contains("free"), e.getMessage());
+    }
+
+    /** Overwrites dim[0..] of a little-endian header (in place) and returns it. */
+    private static byte[] withDims(byte[] raw, int... dims) {
+        ByteBuffer b = ByteBuffer.wrap(raw).order(ByteOrder.LITTLE_ENDIAN);
+        for (int i = 0; i < dims.length; i++) {
+            b.putShort(40 + 2 * i, (short) dims[i]);
+        }
+        return raw;
     }
 
     private void assertBad(byte[] raw, int offset, short value, String expect) throws IOException {

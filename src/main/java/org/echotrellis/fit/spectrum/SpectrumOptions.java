@@ -20,7 +20,7 @@ public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularis
     public static final SpectrumOptions DEFAULT = new SpectrumOptions(T2Grid.DEFAULT, 1000, Regularisation.CHI2,
             1.02, RefocusSearch.DEFAULT, List.of(FractionWindow.DEFAULT));
 
-    /** Validates; every window must lie within the grid. */
+    /** Validates; every window must lie within the grid, and no window may be given twice. */
     public SpectrumOptions {
         Checks.require(grid != null && regularisation != null && search != null && windows != null,
                 "spectrum options must not be null");
@@ -28,8 +28,11 @@ public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularis
         Checks.inRange("--misfit-increase", misfitIncrease, 1.0, 10.0, null);
         Checks.require(!windows.isEmpty(), "at least one --fraction-window-ms is needed");
         windows = List.copyOf(windows);
-        for (FractionWindow w : windows) {
+        for (int i = 0; i < windows.size(); i++) {
+            FractionWindow w = windows.get(i);
             w.checkWithin(grid);
+            Checks.require(windows.indexOf(w) == i, "--fraction-window-ms " + w.label()
+                    + " is given twice; each window names its own output maps");
         }
     }
 

@@ -6,6 +6,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
 import org.echotrellis.pathway.ClassDecomposition;
 import org.echotrellis.pathway.PathwayAnalysis;
@@ -152,6 +153,16 @@ public final class PathwaysCommand implements Callable<Integer> {
         }
         if (diagramUntilMs != null) {
             Checks.positive("--diagram-until-ms", diagramUntilMs, null);
+        }
+        if (plot != null && diagram != null) {
+            Checks.require(!plot.toAbsolutePath().normalize().equals(diagram.toAbsolutePath().normalize()),
+                    "--plot and --diagram name the same file " + plot + "; give two paths");
+        }
+        for (Path f : new Path[] {plot, diagram}) {
+            if (f != null) {                      // refuse before any work or output, not after the table
+                ChartFiles.isSvg(f);
+                AtomicFiles.checkWritable(f, force);
+            }
         }
     }
 }

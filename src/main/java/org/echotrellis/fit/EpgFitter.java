@@ -106,7 +106,8 @@ final class EpgFitter {
      *
      * @param data decay at data[offset .. offset + echoes); not modified
      * @param offset start
-     * @param b1Fixed B1 from a map, or NaN to fit B1
+     * @param b1Fixed B1 from a map, or NaN to fit B1; a value outside [b1Min, b1Max] gives
+     *        {@link VoxelStatus#INVALID_INPUT}
      * @param out receives the {@link #OUTPUTS} values; modified
      * @return the status
      */
@@ -118,6 +119,9 @@ final class EpgFitter {
         }
         if (!(peak > 0)) {
             return VoxelStatus.INVALID_INPUT;
+        }
+        if (b1Fixed < settings.b1Min() || b1Fixed > settings.b1Max()) {
+            return VoxelStatus.INVALID_INPUT;  // a map value outside the bounds (e.g. in percent) is not clamped
         }
         y = data;
         off = offset;

@@ -8,7 +8,8 @@ package org.echotrellis.io;
  *   <li>1 {@link #OK}: fitted, all parameters inside their bounds;</li>
  *   <li>2 {@link #HIT_BOUND}: fitted, a parameter ended on a bound (treat the value as a limit);</li>
  *   <li>3 {@link #LOW_SIGNAL}: fitted, but the signal is too weak relative to the noise to trust;</li>
- *   <li>4 {@link #INVALID_INPUT}: not fitted: NaN/Inf echo, all echoes ≤ 0, or an invalid B1 value;</li>
+ *   <li>4 {@link #INVALID_INPUT}: not fitted: NaN/Inf echo, all echoes ≤ 0, or an invalid B1 value
+ *       (not finite, ≤ 0, or outside the fit's B1 bounds);</li>
  *   <li>5 {@link #NOT_CONVERGED}: the solver stopped at its iteration limit or failed (NaN outputs).</li>
  * </ul>
  */

@@ -103,4 +103,19 @@ class EpgFitAccuracyTest {
         double[] longT2 = FitData.decay(TRAIN, 1000, 1e5, 0.8);
         assertEquals(VoxelStatus.HIT_BOUND, fit.estimate(longT2, Double.NaN).status());
     }
+
+    @Test
+    void aB1MapValueOutsideTheB1BoundsIsInvalidInputNotClampedToABound() {
+        // A B1 map stored in percent (100 = nominal) or a corrupt value must not be silently
+        // clamped to --b1-min/--b1-max and fitted as if it were that B1 (common practice: a fixed
+        // parameter outside its allowed range is rejected, not replaced).
+        T2Fit fit = new T2Fit.Factory(FitSettings.defaults(TRAIN), FitModel.EPG, false).newKernel();
+        double[] y = FitData.decay(TRAIN, 1000, 45, 0.8);
+        for (double b1 : new double[] {80, 1.9, 0.1}) {
+            T2Estimate e = fit.estimate(y, b1);
+            assertEquals(VoxelStatus.INVALID_INPUT, e.status(), "B1 map value " + b1);
+            assertTrue(Double.isNaN(e.t2Ms()), "B1 map value " + b1);
+        }
+        assertEquals(VoxelStatus.OK, fit.estimate(y, 0.8).status());
+    }
 }

@@ -1,6 +1,11 @@
 package org.echotrellis.cli;
 
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -8,6 +13,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
+import org.echotrellis.InputException;
 import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
 import org.echotrellis.plot.ChartFiles;
@@ -15,7 +21,6 @@ import org.echotrellis.plot.EchoPlot;
 import org.echotrellis.sequence.EchoTrain;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.Simulator;
-import org.echotrellis.sequence.Sweep;
 import org.echotrellis.sequence.Tissue;
 import org.echotrellis.sequence.TissuePresets;
 import picocli.CommandLine.Command;
@@ -140,16 +145,18 @@ public final class SimulateCommand implements Callable<Integer> {
     private int sweep(Protocol p, PrintWriter o) {
         SweepGrid grid = SweepGrid.parse(sweeps, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale());
         int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
-        double[][] mags;
+        int chunk = SweepWriter.chunkPoints(p.echoCount());
         try (ProgressBar bar = new ProgressBar(spec.commandLine().getErr(), "points", grid.size(), quiet)) {
-            mags = Sweep.magnitudes(p, grid.t1Ms(), grid.t2Ms(), grid.b1(), nThreads, bar::update);
-        }
-        String csv = Tables.sweepCsv(grid, mags);
-        if (out != null) {
-            AtomicFiles.writeString(out, csv, force);
-        } else {
-            o.print(csv);
-            o.flush();
+            if (out != null) {
+                AtomicFiles.write(out, force, stream -> {
+                    Writer w = new BufferedWriter(new OutputStreamWriter(stream, StandardCharsets.UTF_8), 1 << 16);
+                    SweepWriter.write(p, grid, nThreads, chunk, w, bar::update);
+                });
+            } else {
+                SweepWriter.write(p, grid, nThreads, chunk, o, bar::update);
+            }
+        } catch (IOException e) {
+            throw new InputException("cannot write the sweep CSV: " + e.getMessage(), e);
         }
         return 0;
     }

@@ -61,24 +61,6 @@ final class Tables {
         return sb.toString();
     }
 
-    static String sweepCsv(SweepGrid g, double[][] mags) {
-        int n = mags.length == 0 ? 0 : mags[0].length;
-        StringBuilder sb = new StringBuilder(32 + mags.length * (24 + 12 * n));
-        sb.append("t1_ms,t2_ms,b1");
-        for (int e = 1; e <= n; e++) {
-            sb.append(",echo_").append(e);
-        }
-        sb.append('\n');
-        for (int i = 0; i < mags.length; i++) {
-            sb.append(g.t1Ms()[i]).append(',').append(g.t2Ms()[i]).append(',').append(g.b1()[i]);
-            for (int e = 0; e < n; e++) {
-                sb.append(',').append(String.format(Locale.ROOT, "%.9g", mags[i][e]));
-            }
-            sb.append('\n');
-        }
-        return sb.toString();
-    }
-
     private static String csv(String s) {
         return s.contains(",") || s.contains("\"") ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
     }

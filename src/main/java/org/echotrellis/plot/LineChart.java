@@ -95,9 +95,15 @@ public final class LineChart {
         DefaultXYDataset data = new DefaultXYDataset();
         XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
         Shape dot = new Ellipse2D.Double(-3, -3, 6, 6);
+        java.util.Set<String> keys = new java.util.HashSet<>();
         for (int i = 0; i < series.size(); i++) {
             Series s = series.get(i);
-            data.addSeries(s.name(), new double[][] {s.x(), s.y()});
+            // the dataset replaces a series whose key repeats, so a repeated name gets a number
+            String key = s.name();
+            for (int copy = 2; !keys.add(key); copy++) {
+                key = s.name() + " (" + copy + ")";
+            }
+            data.addSeries(key, new double[][] {s.x(), s.y()});
             r.setSeriesPaint(i, ChartStyle.color(s.color()));
             boolean line = s.look() != Look.MARKERS;
             boolean marks = s.look() == Look.MARKERS || s.look() == Look.LINE_MARKERS;

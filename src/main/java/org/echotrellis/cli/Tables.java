@@ -62,6 +62,7 @@ final class Tables {
     }
 
     private static String csv(String s) {
-        return s.contains(",") || s.contains("\"") ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
+        boolean quote = s.contains(",") || s.contains("\"") || s.contains("\n") || s.contains("\r");
+        return quote ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
     }
 }

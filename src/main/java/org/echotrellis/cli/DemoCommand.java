@@ -42,7 +42,11 @@ public final class DemoCommand implements Callable<Integer> {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
-        Files.createDirectories(out);
+        try {
+            Files.createDirectories(out);
+        } catch (java.io.IOException e) {
+            throw new InputException("--out " + out + ": cannot create the directory (" + e.getMessage() + ")", e);
+        }
         StringBuilder summary = new StringBuilder("# echotrellis demo summary\n\n"
                 + "All protocols, tissues and phantoms here are invented scenarios for demonstration.\n\n");
         DemoContext ctx = new DemoContext(out, true, summary, spec.commandLine().getErr(), quiet);

@@ -23,6 +23,7 @@ import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.Simulator;
 import org.echotrellis.sequence.Tissue;
 import org.echotrellis.sequence.TissuePresets;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -82,6 +83,7 @@ public final class SimulateCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        refuseIgnoredOptions();
         Protocol p = input.load();
         Tissue t = p.tissue();
         double scale = p.b1Scale();
@@ -118,6 +120,23 @@ public final class SimulateCommand implements Callable<Integer> {
             ChartFiles.write(ep.build(), plot, 900, 560, force);
         }
         return 0;
+    }
+
+    /** Options that the chosen mode would ignore are refused rather than silently dropped. */
+    private void refuseIgnoredOptions() {
+        if (sweeps.isEmpty()) {
+            if (out != null) {
+                throw new InputException("--out " + out + ": --out writes the --sweep CSV; a single train goes to "
+                        + "stdout (redirect it) and its plot to --plot");
+            }
+            return;
+        }
+        CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
+        for (String option : List.of("--format", "--plot", "--plot-b1", "--plot-tissue")) {
+            if (parsed.hasMatchedOption(option)) {
+                throw new InputException(option + " cannot be combined with --sweep; a sweep writes CSV, one row per grid point");
+            }
+        }
     }
 
     private Map<String, Object> json(Protocol p, EchoTrain train) {

@@ -1,0 +1,41 @@
+package org.echotrellis.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** Options that would be silently ignored are refused with one line and exit code 2. */
+class SimulateOptionCombinationTest {
+    @TempDir
+    Path tmp;
+
+    @Test
+    void outWithoutSweepIsRefused() {
+        Path out = tmp.resolve("echoes.csv");
+        CliRun r = CliRun.of("simulate", "sequences/knee-t2-16.yaml", "--format", "csv", "--out", out.toString());
+        assertEquals(2, r.code(), r.err());
+        assertTrue(r.err().startsWith("echotrellis: --out"), r.err());
+        assertEquals("", r.out());
+        assertFalse(Files.exists(out));
+    }
+
+    @Test
+    void singleTrainOptionsWithSweepAreRefused() {
+        String[][] extras = {{"--format", "json"}, {"--plot", tmp.resolve("p.png").toString()}, {"--plot-b1", "0.8"},
+            {"--plot-tissue", "blood_3t"}};
+        for (String[] extra : extras) {
+            CliRun r = CliRun.of("simulate", "sequences/knee-t2-16.yaml", "--sweep", "t2_ms=20:40:3", "--quiet",
+                    extra[0], extra[1]);
+            assertEquals(2, r.code(), extra[0] + ": " + r.err());
+            assertTrue(r.err().startsWith("echotrellis: " + extra[0] + " "), r.err());
+            assertEquals(1, r.err().strip().lines().count(), r.err());
+            assertEquals("", r.out());
+        }
+        assertFalse(Files.exists(tmp.resolve("p.png")));
+    }
+}

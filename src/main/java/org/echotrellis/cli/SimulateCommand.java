@@ -122,12 +122,19 @@ public final class SimulateCommand implements Callable<Integer> {
         return 0;
     }
 
-    /** Options that the chosen mode would ignore are refused rather than silently dropped. */
+    /**
+     * Options that the chosen mode would ignore are refused rather than silently dropped, and the plot
+     * path is checked before any work or output.
+     */
     private void refuseIgnoredOptions() {
         if (sweeps.isEmpty()) {
             if (out != null) {
                 throw new InputException("--out " + out + ": --out writes the --sweep CSV; a single train goes to "
                         + "stdout (redirect it) and its plot to --plot");
+            }
+            if (plot != null) {
+                ChartFiles.isSvg(plot);
+                AtomicFiles.checkWritable(plot, force);
             }
             return;
         }

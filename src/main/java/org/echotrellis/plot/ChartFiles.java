@@ -35,7 +35,8 @@ public final class ChartFiles {
      * @throws InputException for any other extension
      */
     public static boolean isSvg(Path path) {
-        String n = path.getFileName().toString().toLowerCase(Locale.ROOT);
+        Path name = path.getFileName();
+        String n = name == null ? "" : name.toString().toLowerCase(Locale.ROOT);
         if (n.endsWith(".svg")) {
             return true;
         }

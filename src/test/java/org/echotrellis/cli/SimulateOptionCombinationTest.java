@@ -38,4 +38,18 @@ class SimulateOptionCombinationTest {
         }
         assertFalse(Files.exists(tmp.resolve("p.png")));
     }
+
+    /** A plot path that cannot be written is refused before any output, not after the table. */
+    @Test
+    void badPlotPathsAreRefusedBeforeAnyOutput() throws Exception {
+        Path existing = Files.writeString(tmp.resolve("old.png"), "x");
+        String[] paths = {existing.toString(), "/", tmp.resolve("p.gif").toString()};
+        for (String path : paths) {
+            CliRun r = CliRun.of("simulate", "sequences/knee-t2-16.yaml", "--plot", path);
+            assertEquals(2, r.code(), path + ": " + r.err());
+            assertEquals(1, r.err().strip().lines().count(), r.err());
+            assertEquals("", r.out(), path);
+        }
+        assertEquals("x", Files.readString(existing));
+    }
 }

@@ -32,7 +32,7 @@ public record EchoTrain(List<String> labels, double[] timesMs, double[] re, doub
 
     /** @return phase of echo i in degrees, (-180, 180] */
     public double phaseDeg(int i) {
-        return Math.toDegrees(Math.atan2(im[i], re[i]));
+        return Math.toDegrees(Math.atan2(im[i] + 0.0, re[i])); // + 0.0 turns -0.0 into 0.0: 180, not -180
     }
 
     /** @return magnitudes of all echoes */

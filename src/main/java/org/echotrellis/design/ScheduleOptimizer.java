@@ -67,6 +67,10 @@ public final class ScheduleOptimizer {
         java.util.Arrays.fill(work, constFlip);
         double constValue = evaluator.value(objective, problem, work);
 
+        if (n < 2) {                     // one flip: the best constant flip is the optimum
+            return new OptimizedSchedule(work.clone(), new double[] {constFlip}, constValue, constFlip, constValue,
+                    evaluations);
+        }
         int span = Math.min(n, Math.max(2, objective.lastEcho()));
         FlipSpline spline = new FlipSpline(Math.min(knots, span), span);
         int k = spline.knots();

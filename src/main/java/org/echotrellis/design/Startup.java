@@ -12,7 +12,8 @@ import org.echotrellis.InputException;
  *     inversion starts at echo 2.</li>
  * <li>{@code ramp:N}: over the first N echoes the target is blended from the largest echo reachable
  *     at that echo down to the prescription, weight (N+1−n)/(N+1) on the former, for a smooth
- *     transition between pseudo-steady states (Hennig, Weigel &amp; Scheffler, MRM 49:527, 2003).</li>
+ *     transition between pseudo-steady states (Hennig, Weigel &amp; Scheffler, MRM 49:527, 2003); in a
+ *     train no longer than the ramp it covers every echo but the last, which keeps the prescription.</li>
  * </ul>
  */
 public sealed interface Startup {
@@ -57,7 +58,7 @@ public sealed interface Startup {
 
         @Override
         public int echoes(int trainEchoes) {
-            return Math.min(length, trainEchoes);
+            return Math.max(0, Math.min(length, trainEchoes - 1));   // the last echo keeps the prescription
         }
 
         @Override

@@ -111,6 +111,11 @@ public final class ProtocolReader {
         Node root;
         try (JsonParser p = factory(yaml).createParser(text)) {
             root = Node.read(p, source);
+            if (p.nextToken() != null) {
+                var at = p.currentTokenLocation();
+                throw new InputException(source + ":" + at.getLineNr() + ":" + at.getColumnNr()
+                        + ": more content after the protocol; give one protocol per file");
+            }
         } catch (JsonProcessingException e) {
             var loc = e.getLocation();
             String where = loc == null ? source : source + ":" + loc.getLineNr() + ":" + loc.getColumnNr();
@@ -186,8 +191,9 @@ public final class ProtocolReader {
         Tissue base = null;
         if (m.containsKey("preset")) {
             Node p = m.get("preset");
+            String preset = p.text("preset");
             try {
-                base = TissuePresets.get(p.text("preset"));
+                base = TissuePresets.get(preset);
             } catch (InputException e) {
                 throw new InputException(p.where + ": " + e.getMessage(), e);
             }

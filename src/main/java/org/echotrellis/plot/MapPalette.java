@@ -24,11 +24,12 @@ public final class MapPalette implements PaintScale {
 
     /**
      * @param lower value mapped to the first colour
-     * @param upper value mapped to the last colour (&gt; lower)
+     * @param upper value mapped to the last colour (&gt; lower; otherwise the range is widened)
      */
     public MapPalette(double lower, double upper) {
         this.lower = lower;
-        this.upper = upper > lower ? upper : lower + 1;
+        // an empty range is widened by 1, or relatively where adding 1 would not change the value
+        this.upper = upper > lower ? upper : lower + Math.max(1, Math.abs(lower) * 1e-6);
     }
 
     @Override

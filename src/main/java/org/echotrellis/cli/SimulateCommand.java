@@ -135,6 +135,19 @@ public final class SimulateCommand implements Callable<Integer> {
             if (plot != null) {
                 ChartFiles.isSvg(plot);
                 AtomicFiles.checkWritable(plot, force);
+            } else if (!plotB1.isEmpty() || !plotTissues.isEmpty()) {
+                throw new InputException((plotB1.isEmpty() ? "--plot-tissue" : "--plot-b1")
+                        + " adds curves to the --plot chart; give --plot PATH.png or PATH.svg too");
+            }
+            for (double extra : plotB1) {
+                CliChecks.b1("--plot-b1", extra);
+            }
+            for (String name : plotTissues) {
+                try {
+                    TissuePresets.get(name);
+                } catch (InputException e) {
+                    throw new InputException("--plot-tissue: " + e.getMessage(), e);
+                }
             }
             return;
         }

@@ -52,4 +52,24 @@ class SimulateOptionCombinationTest {
         }
         assertEquals("x", Files.readString(existing));
     }
+
+    /** Extra plot curves are checked before any output, and need --plot. */
+    @Test
+    void extraCurvesAreCheckedFirstAndNeedAPlot() {
+        String png = tmp.resolve("q.png").toString();
+        String[][] cases = {{"--plot", png, "--plot-b1", "-1"}, {"--plot", png, "--plot-tissue", "no_such_tissue"},
+            {"--plot-b1", "0.8"}, {"--plot-tissue", "blood_3t"}};
+        for (String[] c : cases) {
+            String[] args = new String[2 + c.length];
+            args[0] = "simulate";
+            args[1] = "sequences/knee-t2-16.yaml";
+            System.arraycopy(c, 0, args, 2, c.length);
+            CliRun r = CliRun.of(args);
+            assertEquals(2, r.code(), String.join(" ", c) + ": " + r.err());
+            assertEquals(1, r.err().strip().lines().count(), r.err());
+            assertEquals("", r.out(), String.join(" ", c));
+            assertTrue(r.err().startsWith("echotrellis: " + c[c.length - 2]), r.err());
+        }
+        assertFalse(Files.exists(tmp.resolve("q.png")));
+    }
 }

@@ -6,7 +6,9 @@ import org.echotrellis.InputException;
  * Estimates the noise level σ of the underlying Gaussian channels from magnitude voxels that hold
  * no signal (the complement of the mask). For pure noise the magnitude is Rayleigh-distributed
  * with E[M²] = 2σ², so σ = √(mean(M²)/2) (Gudbjartsson &amp; Patz, "The Rician distribution of
- * noisy MRI data", Magn Reson Med 34:910, 1995). All echoes of every background voxel are used.
+ * noisy MRI data", Magn Reson Med 34:910, 1995). All echoes of every background voxel are used,
+ * except voxels whose echoes are all exactly 0 (zero-filled outside the field of view or by a
+ * masking tool: they hold no noise sample, and counting them would lower σ).
  */
 public final class BackgroundNoise {
     private BackgroundNoise() { }
@@ -29,7 +31,7 @@ public final class BackgroundNoise {
         for (int z = 0; z < h.size(3); z++) {
             job.data().readSlab(z, 1, slab);
             for (int v = 0; v < slice; v++) {
-                if (job.inside(z * slice + v)) {
+                if (job.inside(z * slice + v) || allZero(slab, v * echoes, echoes)) {
                     continue;
                 }
                 for (int e = 0; e < echoes; e++) {
@@ -45,5 +47,15 @@ public final class BackgroundNoise {
             throw new InputException("--noise-sigma auto: only " + n + " finite values outside the mask; give --noise-sigma S");
         }
         return Math.sqrt(sum / n / 2.0);
+    }
+
+    /** True if every echo of the voxel is exactly 0 (zero-filled, not a noise sample). */
+    private static boolean allZero(double[] slab, int off, int echoes) {
+        for (int e = 0; e < echoes; e++) {
+            if (slab[off + e] != 0) {
+                return false;
+            }
+        }
+        return true;
     }
 }

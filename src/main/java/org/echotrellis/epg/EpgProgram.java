@@ -2,7 +2,9 @@ package org.echotrellis.epg;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import org.echotrellis.Checks;
 
 /**
@@ -42,6 +44,8 @@ public final class EpgProgram {
         table = new int[n];
         phaseRad = new double[n];
         dephasing = new int[n];
+        Map<Long, Integer> flipIndex = new HashMap<>();
+        Map<Long, Integer> durationIndex = new HashMap<>();
         List<Double> flips = new ArrayList<>();
         List<Double> durations = new ArrayList<>();
         int echoes = 0;
@@ -51,12 +55,12 @@ public final class EpgProgram {
             op[i] = (byte) o[0];
             switch (op[i]) {
                 case RF -> {
-                    table[i] = indexOf(flips, Math.toRadians(o[1]));
+                    table[i] = indexOf(flips, flipIndex, Math.toRadians(o[1]));
                     double deg = o[2] - 360.0 * Math.floor(o[2] / 360.0);
                     phaseRad[i] = Math.toRadians(deg);
                 }
                 case INTERVAL -> {
-                    table[i] = indexOf(durations, o[1]);
+                    table[i] = indexOf(durations, durationIndex, o[1]);
                     dephasing[i] = (int) o[2];
                 }
                 default -> {
@@ -99,14 +103,12 @@ public final class EpgProgram {
         bufferLength = (maxCum - minCum) + 2 * maxOrder + 1;
     }
 
-    private static int indexOf(List<Double> values, double v) {
-        for (int i = 0; i < values.size(); i++) {
-            if (Double.compare(values.get(i), v) == 0) {
-                return i;
-            }
-        }
-        values.add(v);
-        return values.size() - 1;
+    /** Index of v in the table of unique values (bitwise equality, as Double.compare), appending it if new. */
+    private static int indexOf(List<Double> values, Map<Long, Integer> index, double v) {
+        return index.computeIfAbsent(Double.doubleToLongBits(v), bits -> {
+            values.add(v);
+            return values.size() - 1;
+        });
     }
 
     /** @return number of echo read-outs */

@@ -67,6 +67,9 @@ public final class ProtocolReader {
         }
         byte[] bytes;
         try {
+            if (Files.isDirectory(file)) {
+                throw new InputException(name + ": is a directory, expected a protocol file");
+            }
             if (!Files.isRegularFile(file)) {
                 throw new InputException(name + ": no such file");
             }

@@ -38,4 +38,13 @@ class ProtocolDocumentTest {
                 () -> ProtocolReader.parse("tissue: {preset: [1]}\n" + TRAIN, "p.yaml", true)).getMessage();
         assertEquals("p.yaml:1:18: preset must be text, got a list", m);
     }
+
+    @Test
+    void aDirectoryIsNamedAsSuch(@org.junit.jupiter.api.io.TempDir java.nio.file.Path tmp) throws Exception {
+        java.nio.file.Path dir = java.nio.file.Files.createDirectory(tmp.resolve("protocols.yaml"));
+        String m = assertThrows(InputException.class, () -> ProtocolReader.read(dir)).getMessage();
+        assertEquals(dir + ": is a directory, expected a protocol file", m);
+        String missing = assertThrows(InputException.class, () -> ProtocolReader.read(tmp.resolve("none.yaml"))).getMessage();
+        assertEquals(tmp.resolve("none.yaml") + ": no such file", missing);
+    }
 }

@@ -102,7 +102,7 @@ public record Protocol(String name, String description, Tissue tissue, double b1
     /**
      * The CPMG train this protocol is, when the fast path applies: the shorthand train, or an event
      * list of the pattern rf, then per echo [interval(d, s), rf, interval(d, s), echo] with one duration
-     * d and one non-zero dephasing step s throughout; and in both cases refocusing phases that satisfy
+     * d &gt; 0 and one non-zero dephasing step s throughout; and in both cases refocusing phases that satisfy
      * the CPMG relation ({@link CpmgTrain#isCpmgPhased()}).
      *
      * @return the train, or empty if the general engine is needed
@@ -135,7 +135,7 @@ public record Protocol(String name, String description, Tissue tissue, double b1
                 d = a.durationMs();
                 s = a.dephasing();
             }
-            if (s == 0 || a.durationMs() != d || b.durationMs() != d || a.dephasing() != s || b.dephasing() != s) {
+            if (s == 0 || !(d > 0) || a.durationMs() != d || b.durationMs() != d || a.dephasing() != s || b.dephasing() != s) {
                 return Optional.empty();
             }
             flips[i] = r.flipDeg();

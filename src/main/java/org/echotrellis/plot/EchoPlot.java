@@ -8,6 +8,8 @@ import org.jfree.chart.JFreeChart;
  * optionally, the ideal exp(&minus;TE/T2) curve a perfect 180&deg; train would give (dashed).
  */
 public final class EchoPlot {
+    /** Palette colour of the ideal curve; trains use the others. */
+    private static final int IDEAL_COLOR = 5;
     private final LineChart chart;
     private int count;
 
@@ -22,13 +24,13 @@ public final class EchoPlot {
 
     /** Adds a predicted train (magnitudes). */
     public EchoPlot train(String name, EchoTrain train) {
-        chart.add(name, train.timesMs(), train.magnitudes(), LineChart.Look.LINE_MARKERS, count++);
+        chart.add(name, train.timesMs(), train.magnitudes(), LineChart.Look.LINE_MARKERS, nextColor());
         return this;
     }
 
     /** Adds a series of magnitudes at given times. */
     public EchoPlot series(String name, double[] timesMs, double[] values) {
-        chart.add(name, timesMs, values, LineChart.Look.LINE_MARKERS, count++);
+        chart.add(name, timesMs, values, LineChart.Look.LINE_MARKERS, nextColor());
         return this;
     }
 
@@ -48,7 +50,7 @@ public final class EchoPlot {
             t[i] = lastMs * i / m;
             y[i] = scale * Math.exp(-t[i] / t2Ms);
         }
-        chart.add("ideal exp(-TE/T2), T2 = " + fmt(t2Ms) + " ms", t, y, LineChart.Look.DASHED, 5);
+        chart.add("ideal exp(-TE/T2), T2 = " + fmt(t2Ms) + " ms", t, y, LineChart.Look.DASHED, IDEAL_COLOR);
         return this;
     }
 
@@ -61,6 +63,12 @@ public final class EchoPlot {
     /** @return the styled chart */
     public JFreeChart build() {
         return chart.build();
+    }
+
+    /** The next palette colour for a train, cycling over every colour but the ideal curve's. */
+    private int nextColor() {
+        int c = count++ % (ChartStyle.SERIES_COLORS.length - 1);
+        return c >= IDEAL_COLOR ? c + 1 : c;
     }
 
     private static String fmt(double v) {

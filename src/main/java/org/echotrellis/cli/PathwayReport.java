@@ -19,9 +19,9 @@ final class PathwayReport {
         return Double.isNaN(v) ? null : v;
     }
 
-    /** Phase in degrees, with rounding noise around 0 shown as 0. */
+    /** Phase in degrees, (-180, 180], with rounding noise around 0 shown as 0. */
     private static double phaseDeg(double re, double im) {
-        double deg = Math.toDegrees(Math.atan2(im, re));
+        double deg = Math.toDegrees(Math.atan2(im + 0.0, re)); // + 0.0 turns -0.0 into 0.0: 180, not -180
         return Math.abs(deg) < 5e-4 ? 0.0 : deg;
     }
 

@@ -36,7 +36,18 @@ public final class Main implements Runnable {
     /** @param args command-line arguments */
     public static void main(String[] args) {
         System.setProperty("java.awt.headless", "true");
-        System.exit(newCommandLine().execute(args));
+        int code;
+        try {
+            code = newCommandLine().execute(args);
+        } catch (OutOfMemoryError e) {
+            System.err.println("echotrellis: out of memory (" + Runtime.getRuntime().maxMemory() / (1 << 20)
+                    + " MB heap); run java with a larger -Xmx, or process less at once");
+            if (debug(args)) {
+                e.printStackTrace();
+            }
+            code = 1;
+        }
+        System.exit(code);
     }
 
     private static boolean debug(String[] args) {

@@ -29,6 +29,8 @@ import org.echotrellis.InputException;
 public record PulseShape(String label, double[] samples) {
     /** Samples of the built-in shapes (midpoint rule; A_f and P_f accurate to about 1e-7). */
     public static final int SAMPLES = 4000;
+    /** Largest accepted pulse-envelope file. */
+    public static final long MAX_FILE_BYTES = 20_000_000;
 
     /** Copies, normalises to peak magnitude 1 and checks that the envelope can produce a flip. */
     public PulseShape {
@@ -139,9 +141,14 @@ public record PulseShape(String label, double[] samples) {
     public static PulseShape fromFile(Path file, String option) {
         List<String> lines;
         try {
+            if (Files.isRegularFile(file) && Files.size(file) > MAX_FILE_BYTES) {
+                throw new InputException(option + " " + file + ": file larger than " + MAX_FILE_BYTES + " bytes");
+            }
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);
         } catch (NoSuchFileException e) {
             throw new InputException(option + " " + file + ": file not found");
+        } catch (InputException e) {
+            throw e;
         } catch (IOException | RuntimeException e) {
             throw new InputException(option + " " + file + ": cannot read (" + e.getMessage() + ")", e);
         }

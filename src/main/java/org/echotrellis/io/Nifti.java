@@ -7,6 +7,7 @@ import java.io.InputStream;
 import java.io.OutputStream;
 import java.nio.ByteBuffer;
 import java.nio.channels.FileChannel;
+import java.nio.channels.SeekableByteChannel;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
@@ -47,24 +48,13 @@ public final class Nifti {
                 }
             }
             if ((head[0] & 0xff) == 0x1f && (head[1] & 0xff) == 0x8b) {
-                return openCompressed(file, where);
-            }
-            FileChannel ch = FileChannel.open(file, StandardOpenOption.READ);
-            try {
-                ByteBuffer hb = ByteBuffer.allocate(NiftiHeader.HEADER_SIZE);
-                while (hb.hasRemaining() && ch.read(hb) >= 0) {
-                    // read the header
+                try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(file)), CHUNK)) {
+                    return spool(in, where);
+                } catch (ZipException | java.io.EOFException e) {
+                    throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
                 }
-                NiftiHeader h = NiftiHeader.decode(java.util.Arrays.copyOf(hb.array(), hb.position()), where);
-                long need = h.voxOffset() + h.dataBytes();
-                if (ch.size() < need) {
-                    throw new InputException(where + ": file is truncated: " + ch.size() + " bytes, header declares " + need);
-                }
-                return new NiftiInput(h, ch, null, where);
-            } catch (RuntimeException e) {
-                ch.close();
-                throw e;
             }
+            return inPlace(FileChannel.open(file, StandardOpenOption.READ), where);
         } catch (NoSuchFileException e) {
             throw new InputException(where + ": file not found");
         } catch (IOException e) {
@@ -72,11 +62,90 @@ public final class Nifti {
         }
     }
 
-    private static NiftiInput openCompressed(Path file, String where) throws IOException {
+    /**
+     * Opens a series from a stream (for example a file of a distributed file system). The stream is
+     * copied (inflated if it starts with the gzip bytes 0x1f 0x8b) into a temporary file, bounded by
+     * the size its header declares; {@link NiftiInput#close()} deletes the copy. The stream is read
+     * to its end but not closed.
+     *
+     * @param in the file's bytes from the start
+     * @param name the file name used in messages
+     * @return the open input (close it)
+     * @throws InputException for a truncated, oversized or non-NIfTI stream
+     */
+    public static NiftiInput open(InputStream in, String name) {
+        try {
+            BufferedInputStream b = new BufferedInputStream(in, CHUNK);
+            b.mark(2);
+            int b0 = b.read();
+            int b1 = b.read();
+            b.reset();
+            InputStream src = b0 == 0x1f && b1 == 0x8b ? new GZIPInputStream(b, CHUNK) : b;
+            return spool(src, name);
+        } catch (ZipException | java.io.EOFException e) {
+            throw new InputException(name + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
+        } catch (IOException e) {
+            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
+        }
+    }
+
+    /**
+     * Opens a series from a seekable channel positioned anywhere (the file starts at position 0).
+     * An uncompressed file is read in place (the channel is closed with the input); a gzip file is
+     * inflated into a temporary file as for {@link #open(InputStream, String)} and the channel closed.
+     *
+     * @param channel the file's bytes
+     * @param name the file name used in messages
+     * @return the open input (close it)
+     * @throws InputException for a truncated, oversized or non-NIfTI file
+     */
+    public static NiftiInput open(SeekableByteChannel channel, String name) {
+        try {
+            ByteBuffer head = ByteBuffer.allocate(2);
+            channel.position(0);
+            while (head.hasRemaining() && channel.read(head) >= 0) {
+                // first two bytes
+            }
+            if (head.position() < 2) {
+                channel.close();
+                throw new InputException(name + ": not a NIfTI file (fewer than 2 bytes)");
+            }
+            channel.position(0);
+            if ((head.get(0) & 0xff) == 0x1f && (head.get(1) & 0xff) == 0x8b) {
+                try (SeekableByteChannel c = channel) {
+                    return open(java.nio.channels.Channels.newInputStream(c), name);
+                }
+            }
+            return inPlace(channel, name);
+        } catch (IOException e) {
+            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
+        }
+    }
+
+    private static NiftiInput inPlace(SeekableByteChannel ch, String where) throws IOException {
+        try {
+            ByteBuffer hb = ByteBuffer.allocate(NiftiHeader.HEADER_SIZE);
+            ch.position(0);
+            while (hb.hasRemaining() && ch.read(hb) >= 0) {
+                // read the header
+            }
+            NiftiHeader h = NiftiHeader.decode(java.util.Arrays.copyOf(hb.array(), hb.position()), where);
+            long need = h.voxOffset() + h.dataBytes();
+            if (ch.size() < need) {
+                throw new InputException(where + ": file is truncated: " + ch.size() + " bytes, header declares " + need);
+            }
+            return new NiftiInput(h, ch, null, where);
+        } catch (RuntimeException | IOException e) {
+            ch.close();
+            throw e;
+        }
+    }
+
+    /** Copies a decompressed stream into a temporary file, bounded by its header's declared size. */
+    private static NiftiInput spool(InputStream in, String where) throws IOException {
         Path tmp = Files.createTempFile("echotrellis-", ".nii");
         tmp.toFile().deleteOnExit();
-        try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(file)), CHUNK);
-                OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
+        try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
             byte[] hb = in.readNBytes(NiftiHeader.HEADER_SIZE);
             NiftiHeader h = NiftiHeader.decode(hb, where);
             long need = h.voxOffset() + h.dataBytes();
@@ -96,7 +165,7 @@ public final class Nifti {
                 out.write(buf, 0, n);
                 have += n;
             }
-            if (in.read() >= 0) {
+            if (in instanceof GZIPInputStream && in.read() >= 0) {
                 throw new InputException(where + ": gzip stream inflates beyond the " + need
                         + " bytes declared by its header; refused");
             }
@@ -160,27 +229,44 @@ public final class Nifti {
             throw new IllegalArgumentException("header needs " + header.totalVoxels() + " values, got " + count);
         }
         boolean gz = file.getFileName().toString().endsWith(".gz");
-        NiftiHeader h = header;
+        AtomicFiles.write(file, force, raw -> encode(raw, header, count, values, gz));
+    }
+
+    /**
+     * Writes an image to a stream (for example a file of a distributed file system) in the same
+     * form as {@link #write(Path, NiftiHeader, float[], boolean)}; the stream is flushed, not closed.
+     *
+     * @param out the target stream
+     * @param header shape, datatype and geometry
+     * @param values values in file order (not modified), length = header.totalVoxels()
+     * @param gzip compress (for a {@code .nii.gz} name)
+     * @throws IOException if the stream fails
+     */
+    public static void write(OutputStream out, NiftiHeader header, float[] values, boolean gzip) throws IOException {
+        if (values.length != header.totalVoxels()) {
+            throw new IllegalArgumentException("header needs " + header.totalVoxels() + " values, got " + values.length);
+        }
+        encode(out, header, values.length, i -> values[i], gzip);
+    }
+
+    private static void encode(OutputStream raw, NiftiHeader h, int count, Values values, boolean gz) throws IOException {
         double slope = h.isScaled() ? h.sclSlope() : 1.0;
         double inter = h.isScaled() ? h.sclInter() : 0.0;
         NiftiDatatype type = h.datatype();
-        AtomicFiles.write(file, force, raw -> {
-            OutputStream out = gz ? new GZIPOutputStream(raw, CHUNK) : raw;
-            out.write(h.encode());
-            ByteBuffer buf = ByteBuffer.allocate(CHUNK).order(h.order());
-            for (int i = 0; i < count; i++) {
-                if (buf.remaining() < type.bytes()) {
-                    out.write(buf.array(), 0, buf.position());
-                    buf.clear();
-                }
-                type.put(buf, (values.at(i) - inter) / slope);
+        OutputStream out = gz ? new GZIPOutputStream(raw, CHUNK) : raw;
+        out.write(h.encode());
+        ByteBuffer buf = ByteBuffer.allocate(CHUNK).order(h.order());
+        for (int i = 0; i < count; i++) {
+            if (buf.remaining() < type.bytes()) {
+                out.write(buf.array(), 0, buf.position());
+                buf.clear();
             }
-            out.write(buf.array(), 0, buf.position());
-            if (out instanceof GZIPOutputStream) {
-                ((GZIPOutputStream) out).finish();
-            }
-            out.flush();
-        });
+            type.put(buf, (values.at(i) - inter) / slope);
+        }
+        out.write(buf.array(), 0, buf.position());
+        if (out instanceof GZIPOutputStream) {
+            ((GZIPOutputStream) out).finish();
+        }
+        out.flush();
     }
-
 }

@@ -34,6 +34,8 @@ public final class NiftiHeader {
     private final float[] srow;       // srow_x, srow_y, srow_z (4 each)
     private final String description;
     private final ByteOrder order;
+    private int intentCode;           // set only through withIntent (copies keep it)
+    private String intentName = "";
 
     private NiftiHeader(int[] dim, float[] pixdim, NiftiDatatype datatype, long voxOffset, double sclSlope,
             double sclInter, int xyztUnits, int qformCode, int sformCode, float[] quatern, float[] srow,
@@ -76,8 +78,8 @@ public final class NiftiHeader {
         float[] p = new float[8];
         Arrays.fill(p, 1f);
         float[] s = {1, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1, 0};
-        return new NiftiHeader(d, p, datatype, MIN_VOX_OFFSET, 1.0, 0.0, 2 | 16, 0, 0, new float[6], s,
-                "echotrellis", ByteOrder.LITTLE_ENDIAN);
+        return (new NiftiHeader(d, p, datatype, MIN_VOX_OFFSET, 1.0, 0.0, 2 | 16, 0, 0, new float[6], s,
+                "echotrellis", ByteOrder.LITTLE_ENDIAN));
     }
 
     /** @return the rank dim[0] */
@@ -199,10 +201,10 @@ public final class NiftiHeader {
         }
         float[] p = pixdim.clone();
         for (int a = 4; a <= 7; a++) {
-            p[a] = a <= d[0] ? p[a] : 1f;
+            p[a] = 0f;  // a 3-D map has no time step: pixdim[4..7] unused, time unit cleared
         }
-        return new NiftiHeader(d, p, type, MIN_VOX_OFFSET, 1.0, 0.0, xyztUnits, qformCode, sformCode, quatern, srow,
-                "echotrellis", ByteOrder.LITTLE_ENDIAN);
+        return (new NiftiHeader(d, p, type, MIN_VOX_OFFSET, 1.0, 0.0, xyztUnits & 0x07, qformCode, sformCode, quatern, srow,
+                "echotrellis", ByteOrder.LITTLE_ENDIAN));
     }
 
     /**
@@ -210,8 +212,8 @@ public final class NiftiHeader {
      * @return a copy with another datatype (scaling kept)
      */
     public NiftiHeader withDatatype(NiftiDatatype type) {
-        return new NiftiHeader(dim, pixdim, type, voxOffset, sclSlope, sclInter, xyztUnits, qformCode, sformCode,
-                quatern, srow, description, order);
+        return keepIntent(new NiftiHeader(dim, pixdim, type, voxOffset, sclSlope, sclInter, xyztUnits, qformCode, sformCode,
+                quatern, srow, description, order));
     }
 
     /**
@@ -220,8 +222,8 @@ public final class NiftiHeader {
      * @return a copy with other scaling
      */
     public NiftiHeader withScaling(double slope, double inter) {
-        return new NiftiHeader(dim, pixdim, datatype, voxOffset, slope, inter, xyztUnits, qformCode, sformCode,
-                quatern, srow, description, order);
+        return keepIntent(new NiftiHeader(dim, pixdim, datatype, voxOffset, slope, inter, xyztUnits, qformCode, sformCode,
+                quatern, srow, description, order));
     }
 
     /**
@@ -229,8 +231,8 @@ public final class NiftiHeader {
      * @return a copy with another byte order
      */
     public NiftiHeader withOrder(ByteOrder byteOrder) {
-        return new NiftiHeader(dim, pixdim, datatype, voxOffset, sclSlope, sclInter, xyztUnits, qformCode, sformCode,
-                quatern, srow, description, byteOrder);
+        return keepIntent(new NiftiHeader(dim, pixdim, datatype, voxOffset, sclSlope, sclInter, xyztUnits, qformCode, sformCode,
+                quatern, srow, description, byteOrder));
     }
 
     /**
@@ -257,8 +259,8 @@ public final class NiftiHeader {
             p[a] = 1f;
         }
         p[4] = 1f;
-        return new NiftiHeader(d, p, datatype, voxOffset, sclSlope, sclInter, xyztUnits & 0x07, qformCode, sformCode,
-                quatern, srow, description, order);
+        return keepIntent(new NiftiHeader(d, p, datatype, voxOffset, sclSlope, sclInter, xyztUnits & 0x07, qformCode, sformCode,
+                quatern, srow, description, order));
     }
 
     /**
@@ -268,8 +270,92 @@ public final class NiftiHeader {
     public NiftiHeader withVoxelSize(float... sizes) {
         float[] p = pixdim.clone();
         System.arraycopy(sizes, 0, p, 1, Math.min(7, sizes.length));
-        return new NiftiHeader(dim, p, datatype, voxOffset, sclSlope, sclInter, xyztUnits, qformCode, sformCode,
-                quatern, srow, description, order);
+        return keepIntent(new NiftiHeader(dim, p, datatype, voxOffset, sclSlope, sclInter, xyztUnits, qformCode, sformCode,
+                quatern, srow, description, order));
+    }
+
+    /** NIFTI_INTENT_ESTIMATE: the values are parameter estimates (nifti1.h). */
+    public static final int INTENT_ESTIMATE = 1001;
+    /** NIFTI_INTENT_LABEL: the values are labels (nifti1.h). */
+    public static final int INTENT_LABEL = 1002;
+
+    private NiftiHeader keepIntent(NiftiHeader h) {
+        h.intentCode = intentCode;
+        h.intentName = intentName;
+        return h;
+    }
+
+    /** @return intent_code (0 none; {@link #INTENT_ESTIMATE}, {@link #INTENT_LABEL}) */
+    public int intentCode() {
+        return intentCode;
+    }
+
+    /** @return intent_name (at most 15 characters) */
+    public String intentName() {
+        return intentName;
+    }
+
+    /**
+     * @param code intent_code, e.g. {@link #INTENT_ESTIMATE}
+     * @param name intent_name (ASCII, cut to 15 characters)
+     * @return a copy with this intent
+     */
+    public NiftiHeader withIntent(int code, String name) {
+        NiftiHeader h = keepIntent(new NiftiHeader(dim, pixdim, datatype, voxOffset, sclSlope, sclInter, xyztUnits,
+                qformCode, sformCode, quatern, srow, description, order));
+        h.intentCode = code;
+        h.intentName = name == null ? "" : name;
+        return h;
+    }
+
+    /**
+     * @param text descrip (ASCII, cut to 79 characters)
+     * @return a copy with this description
+     */
+    public NiftiHeader withDescription(String text) {
+        return keepIntent(new NiftiHeader(dim, pixdim, datatype, voxOffset, sclSlope, sclInter, xyztUnits, qformCode,
+                sformCode, quatern, srow, text == null ? "" : text, order));
+    }
+
+    /**
+     * A copy with an affine as both qform and sform (codes as given): the sform rows are the
+     * affine, the qform is its rotation as a quaternion with voxel sizes and qfac, following the
+     * nifti1.h conversion. The affine's 3×3 part must be a rotation times positive voxel sizes (an
+     * orthogonal grid); a shear keeps only the sform.
+     *
+     * @param affine 12 values, rows x, y, z of the voxel-to-world (mm) matrix
+     * @param code transform code for both (1 scanner, 2 aligned)
+     * @return the header
+     */
+    public NiftiHeader withAffine(double[] affine, int code) {
+        float[] s = new float[12];
+        for (int i = 0; i < 12; i++) {
+            s[i] = (float) affine[i];
+        }
+        NiftiAffine.Quatern q = NiftiAffine.toQuatern(affine);
+        float[] p = pixdim.clone();
+        float[] quat = quatern.clone();
+        int qc = 0;
+        if (q != null) {
+            p[0] = (float) q.qfac();
+            p[1] = (float) q.dx();
+            p[2] = (float) q.dy();
+            p[3] = (float) q.dz();
+            quat = new float[] {(float) q.b(), (float) q.c(), (float) q.d(), s[3], s[7], s[11]};
+            qc = code;
+        }
+        return keepIntent(new NiftiHeader(dim, p, datatype, voxOffset, sclSlope, sclInter, xyztUnits, qc, code,
+                quat, s, description, order));
+    }
+
+    /**
+     * The voxel-to-world affine (mm): the sform if its code is set, else the qform if its code is
+     * set, else the voxel sizes on the diagonal (nifti1.h method 1).
+     *
+     * @return 12 values, rows x, y, z
+     */
+    public double[] affine() {
+        return NiftiAffine.of(this);
     }
 
     /**
@@ -295,6 +381,10 @@ public final class NiftiHeader {
         byte[] text = description.getBytes(StandardCharsets.US_ASCII);
         b.position(148);
         b.put(text, 0, Math.min(79, text.length));
+        b.putShort(68, (short) intentCode);
+        byte[] iname = intentName.getBytes(StandardCharsets.US_ASCII);
+        b.position(328);
+        b.put(iname, 0, Math.min(15, iname.length));
         b.putShort(252, (short) qformCode);
         b.putShort(254, (short) sformCode);
         for (int i = 0; i < 6; i++) {
@@ -398,8 +488,15 @@ public final class NiftiHeader {
         for (int i = 0; i < 12; i++) {
             s[i] = b.getFloat(280 + 4 * i);
         }
-        return new NiftiHeader(d, p, type, voxOffset, slope, inter, units, b.getShort(252), b.getShort(254), q, s,
-                text, b.order());
+        NiftiHeader h = (new NiftiHeader(d, p, type, voxOffset, slope, inter, units, b.getShort(252), b.getShort(254), q, s,
+                text, b.order()));
+        h.intentCode = b.getShort(68);
+        int iend = 328;
+        while (iend < 344 && raw[iend] != 0) {
+            iend++;
+        }
+        h.intentName = new String(raw, 328, iend - 328, StandardCharsets.US_ASCII);
+        return h;
     }
 
     private static double finiteOrZero(float v) {

@@ -89,6 +89,24 @@ final class Storage {
     }
 
     /**
+     * Copies the JSON files (sidecars) directly in a remote directory into a local directory.
+     *
+     * @param dir the remote directory
+     * @param localDir an existing local directory
+     */
+    static void fetchSidecars(org.apache.hadoop.fs.Path dir, Path localDir) {
+        try {
+            for (FileStatus s : fs(dir).listStatus(dir)) {
+                if (s.isFile() && s.getPath().getName().endsWith(".json")) {
+                    fetch(s.getPath(), localDir);
+                }
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException("cannot list " + dir + ": " + e.getMessage(), e);
+        }
+    }
+
+    /**
      * Publishes a local directory as {@code target}: copied to a hidden temporary sibling, then
      * renamed. An existing target is replaced only with {@code replace}.
      *

@@ -30,8 +30,10 @@ public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<Nif
             throw new IllegalArgumentException("slabValues must be >= 1");
         }
         NiftiHeader h = data.header();
-        if (h.rank() > 4) {
-            throw new InputException(data.source() + ": expected a 4-D series (x, y, z, echo), got " + h.rank() + " dimensions");
+        boolean fiveD = h.rank() == 5 && h.size(4) == 1;  // (x, y, z, 1, echo): echoes along dim 5
+        if (h.rank() > 4 && !fiveD) {
+            throw new InputException(data.source() + ": expected a 4-D series (x, y, z, echo) or a 5-D one (x, y, z, 1, echo), got "
+                    + h.rank() + " dimensions with dim[4] = " + h.size(4));
         }
         mask.ifPresent(m -> sameGrid(h, m, "mask"));
         b1Map.ifPresent(b -> sameGrid(h, b, "B1 map"));

@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.echotrellis.Checks;
 import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.epg.SteadyCpmgEngine;
 
 /**
  * The echo train of a whole acquisition — slice integral, steady state over the repetition time and
@@ -37,6 +38,8 @@ import org.echotrellis.epg.CpmgTrain;
  * Cost: about (positions) &times; (1, or 3 with TR) &times; N²/4 complex state updates per train.
  */
 public final class AcquisitionModel {
+    /** Trains evaluated together by {@link #echoes(double[], double[], double[], int, double[], double[])}. */
+    public static final int LANES = 8;
     /** Amplitude grid step of the rotation tables, degrees. */
     public static final double GRID_DEG = 2.0;
 
@@ -60,6 +63,7 @@ public final class AcquisitionModel {
     private final double[] dPost;
     private final double[] dZ;
     private final ThreadLocal<Work> work;
+    private final CpmgTrain realTrain;
 
     private AcquisitionModel(Protocol p, double b1Max) {
         CpmgTrain train = p.train().orElseThrow(() -> new IllegalArgumentException(
@@ -123,6 +127,7 @@ public final class AcquisitionModel {
         dZ = new double[len];
         diffusionFactors(acq, p.tissue().diffusivityMm2PerS());
         int positions = selective ? grid.size() : 1;
+        realTrain = !selective && train.isCpmgPhased() ? train : null;
         work = ThreadLocal.withInitial(() -> new Work(echoes, kindFlipRad.length, positions, dPre, dPost, dZ));
     }
 
@@ -229,6 +234,13 @@ public final class AcquisitionModel {
             throw new IllegalArgumentException("b1 must be within (0, " + b1Max + "], got " + b1);
         }
         Work w = work.get();
+        if (realTrain != null) {
+            w.t1[0] = t1Ms;
+            w.t2[0] = t2Ms;
+            w.b1[0] = b1;
+            real(w, 1, outRe, outIm);
+            return;
+        }
         double e2h = Math.exp(-0.5 * espMs / t2Ms);
         double e1h = Math.exp(-0.5 * espMs / t1Ms);
         boolean tr = Double.isFinite(repetitionMs);
@@ -281,6 +293,54 @@ public final class AcquisitionModel {
         }
     }
 
+    /**
+     * Up to {@link #LANES} trains at once (lock-step lanes on the real CPMG fast path of non-selective
+     * CPMG-phased protocols; one after the other otherwise). Allocation-free after warm-up.
+     *
+     * @param t1Ms T1 per train (ms); not modified
+     * @param t2Ms T2 per train (ms); not modified
+     * @param b1 B1 per train; not modified
+     * @param count trains (1..{@link #LANES})
+     * @param outRe receives Re echo n of train l at [l*N + n]; modified
+     * @param outIm receives Im likewise; modified
+     */
+    public void echoes(double[] t1Ms, double[] t2Ms, double[] b1, int count, double[] outRe, double[] outIm) {
+        if (count < 1 || count > LANES) {
+            throw new IllegalArgumentException("count must be within [1, " + LANES + "], got " + count);
+        }
+        Work w = work.get();
+        if (realTrain != null) {
+            for (int l = 0; l < count; l++) {
+                if (!(b1[l] > 0) || b1[l] > b1Max * (1 + 1e-12)) {
+                    throw new IllegalArgumentException("b1 must be within (0, " + b1Max + "], got " + b1[l]);
+                }
+                w.t1[l] = t1Ms[l];
+                w.t2[l] = t2Ms[l];
+                w.b1[l] = b1[l];
+            }
+            real(w, count, outRe, outIm);
+            return;
+        }
+        for (int l = 0; l < count; l++) {
+            echoes(t1Ms[l], t2Ms[l], b1[l], w.re1, w.im1);
+            System.arraycopy(w.re1, 0, outRe, l * echoes, echoes);
+            System.arraycopy(w.im1, 0, outIm, l * echoes, echoes);
+        }
+    }
+
+    private void real(Work w, int count, double[] outRe, double[] outIm) {
+        w.steady.run(realTrain, dPre, dPost, dZ, repetitionMs, w.t1, w.t2, w.b1, count, w.out);
+        double psi = Math.toRadians(realTrain.excitationPhaseDeg() - 90.0);
+        double c = Math.cos(psi);
+        double s = Math.sin(psi);
+        int m = count * echoes;
+        for (int i = 0; i < m; i++) {
+            double v = w.out[i];
+            outRe[i] = v * c;
+            outIm[i] = v * s;
+        }
+    }
+
     private static void ideal(double flipRad, double[] r) {
         r[0] = Math.cos(0.5 * flipRad);
         r[1] = 0;
@@ -321,11 +381,21 @@ public final class AcquisitionModel {
         final double[] coef;
         final double[] rot = new double[4];
         final double[] im2;
+        final double[] re1;
+        final double[] im1;
+        final SteadyCpmgEngine steady = new SteadyCpmgEngine(LANES);
+        final double[] t1 = new double[LANES];
+        final double[] t2 = new double[LANES];
+        final double[] b1 = new double[LANES];
+        final double[] out;
 
         Work(int echoes, int kinds, int positions, double[] dPre, double[] dPost, double[] dZ) {
             kernel = new TrainKernel(echoes, dPre, dPost, dZ);
             coef = new double[18 * kinds];
             im2 = new double[echoes];
+            re1 = new double[echoes];
+            im1 = new double[echoes];
+            out = new double[LANES * echoes];
         }
     }
 }

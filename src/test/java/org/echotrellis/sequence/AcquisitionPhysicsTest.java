@@ -103,6 +103,50 @@ class AcquisitionPhysicsTest {
     }
 
     @Test
+    void steadyStateWithAnyFlipsMatchesBruteForceIsochromats() {
+        // Brute-force isochromat reference (test sources), repeated until converged, spoiled before
+        // each excitation.
+        double[] flips = new double[16];
+        for (int i = 0; i < flips.length; i++) {
+            flips[i] = 180 - 60 * Math.sin(Math.PI * i / 15);
+        }
+        for (double[] c : new double[][] {{700, 4000, 1500, 0.8}, {1200, 900, 60, 1.1}, {400, 1500, 200, 1.0}}) {
+            double tr = c[0];
+            CpmgTrain t = CpmgTrain.of(16, 12, 75, flips);
+            Protocol p = train(t, new Tissue("x", c[1], c[2]), acq(Optional.empty(), tr, Optional.empty()));
+            EchoTrain e = Simulator.simulate(p, c[1], c[2], c[3]);
+            var s = new SliceBlochReference.Settings("sinc", 4, 2, 2, 1, 75, flips, 12, c[1], c[2], c[3], tr);
+            double[][] ref = SliceBlochReference.nonSelectiveEchoes(s);
+            for (int n = 0; n < 16; n++) {
+                assertEquals(ref[0][n], e.re()[n], 1e-10, "echo " + n + " TR " + tr);
+                assertEquals(ref[1][n], e.im()[n], 1e-10, "echo " + n + " TR " + tr);
+            }
+        }
+    }
+
+    @Test
+    void realFastPathEqualsComplexKernelWithDiffusionAndRepetition() {
+        double[] flips = new double[24];
+        for (int i = 0; i < flips.length; i++) {
+            flips[i] = 120 + 2.5 * i;
+        }
+        Tissue fluid = new Tissue("fluid", 3500, 900, 0.003);
+        Acquisition a = acq(Optional.of(RfPulse.of("sinc", 4, 2.5)), 2500, Optional.of(new Crusher(3, 1.5)));
+        CpmgTrain real = new CpmgTrain(24, 9, 85, 90, flips, new double[24]);
+        double[] nearly = new double[24];
+        java.util.Arrays.fill(nearly, 1e-6); // not CPMG-phased by the test's tolerance: complex kernel
+        CpmgTrain complex = new CpmgTrain(24, 9, 85, 90, flips, nearly);
+        for (double b1 : new double[] {0.65, 1.0, 1.25}) {
+            EchoTrain x = Simulator.simulate(train(real, fluid, a), 3500, 900, b1);
+            EchoTrain y = Simulator.simulate(train(complex, fluid, a), 3500, 900, b1);
+            for (int n = 0; n < 24; n++) {
+                assertEquals(y.re()[n], x.re()[n], 1e-7);
+                assertEquals(0, x.im()[n], 1e-15);
+            }
+        }
+    }
+
+    @Test
     void diffusionNeedsCrushers() {
         Tissue tissue = new Tissue("x", 900, 70, 0.003);
         Protocol p = train(CpmgTrain.constant(8, 10, 150), tissue, Acquisition.none());

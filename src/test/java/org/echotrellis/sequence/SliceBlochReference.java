@@ -136,6 +136,22 @@ public final class SliceBlochReference {
     }
 
     /**
+     * The same acquisition with ideal non-selective pulses (one position; shape and width ratio unused).
+     *
+     * @param s the acquisition
+     * @return {re[], im[]}
+     */
+    public static double[][] nonSelectiveEchoes(Settings s) {
+        double[] distinct = Arrays.stream(s.refocusingFlipsDeg()).distinct().toArray();
+        double[][] refRot = new double[distinct.length][];
+        for (int d = 0; d < distinct.length; d++) {
+            refRot[d] = rodrigues(s.b1() * Math.toRadians(distinct[d]), 0, 0);
+        }
+        double[] excRot = rodrigues(0, s.b1() * Math.toRadians(s.excitationFlipDeg()), 0);
+        return position(s, excRot, distinct, refRot, 2 * s.refocusingFlipsDeg().length + 2);
+    }
+
+    /**
      * @param s the acquisition
      * @return echo magnitudes per unit slice width
      */

@@ -329,7 +329,7 @@ public final class AcquisitionModel {
     }
 
     private void real(Work w, int count, double[] outRe, double[] outIm) {
-        w.steady.run(realTrain, dPre, dPost, dZ, repetitionMs, w.t1, w.t2, w.b1, count, w.out);
+        (count == 1 ? w.single : w.steady).run(realTrain, dPre, dPost, dZ, repetitionMs, w.t1, w.t2, w.b1, count, w.out);
         double psi = Math.toRadians(realTrain.excitationPhaseDeg() - 90.0);
         double c = Math.cos(psi);
         double s = Math.sin(psi);
@@ -384,6 +384,7 @@ public final class AcquisitionModel {
         final double[] re1;
         final double[] im1;
         final SteadyCpmgEngine steady = new SteadyCpmgEngine(LANES);
+        final SteadyCpmgEngine single = new SteadyCpmgEngine(1);
         final double[] t1 = new double[LANES];
         final double[] t2 = new double[LANES];
         final double[] b1 = new double[LANES];

@@ -1,5 +1,6 @@
 package org.echotrellis.cli;
 
+import java.util.List;
 import java.util.Optional;
 
 import org.echotrellis.io.NiftiImage;
@@ -88,5 +89,21 @@ final class CliChecks {
             }
             throw new InputException(m, e);
         }
+    }
+
+    /**
+     * @param spec a running command
+     * @return the command line as typed, for provenance ({@code echotrellis SUBCOMMAND ARGS}); an
+     *         argument with spaces or quotes is quoted
+     */
+    static String commandLine(picocli.CommandLine.Model.CommandSpec spec) {
+        StringBuilder sb = new StringBuilder("echotrellis");
+        picocli.CommandLine.ParseResult pr = spec.root().commandLine().getParseResult();
+        List<String> args = pr == null ? List.of(spec.qualifiedName()) : pr.originalArgs();
+        for (String a : args) {
+            boolean quote = a.isEmpty() || a.chars().anyMatch(ch -> Character.isWhitespace(ch) || ch == '\'' || ch == '"');
+            sb.append(' ').append(quote ? "'" + a.replace("'", "'\\''") + "'" : a);
+        }
+        return sb.toString();
     }
 }

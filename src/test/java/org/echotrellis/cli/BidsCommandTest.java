@@ -170,4 +170,43 @@ class BidsCommandTest {
         assertEquals(2, uneven.code(), uneven.out());
         assertTrue(uneven.err().contains("not evenly spaced") && uneven.err().contains("30.5"), uneven.err());
     }
+
+    @Test
+    void fitChecksASeriesAgainstItsSidecarAndTakesAPercentB1Map() throws IOException {
+        double[][] d = decays(false);
+        double[] series = new double[NV * ECHOES];
+        double[] b1 = new double[NV];
+        for (int v = 0; v < NV; v++) {
+            b1[v] = 100 * b1(v);
+            for (int k = 0; k < ECHOES; k++) {
+                series[k * NV + v] = d[v][k];
+            }
+        }
+        Path s = dir.resolve("series.nii.gz");
+        Nifti.write(s, NiftiHeader.create(NiftiDatatype.FLOAT32, NX, NY, NZ, ECHOES).withAffine(AFFINE, 1), series, false);
+        Path b = dir.resolve("b1.nii.gz");
+        Nifti.write(b, NiftiHeader.create(NiftiDatatype.FLOAT32, NX, NY, NZ).withAffine(AFFINE, 1), b1, false);
+        Path protocol = dir.resolve("p.yaml");
+        Files.writeString(protocol, "name: invented\ntrain:\n  echoes: 24\n  echo_spacing_ms: 10\n  refocusing:\n    flip_deg: 180\n");
+        StringBuilder te = new StringBuilder();
+        for (int k = 1; k <= ECHOES; k++) {
+            te.append(k > 1 ? ", " : "").append(String.format(Locale.ROOT, "%.3f", k * 0.011));
+        }
+        Files.writeString(dir.resolve("series.json"), "{\"EchoTime\": [" + te + "]}\n");
+        Path out = dir.resolve("fit");
+        CliRun wrong = CliRun.of("fit", s.toString(), "--protocol", protocol.toString(), "--out", out.toString(), "--quiet");
+        assertEquals(2, wrong.code(), wrong.err());
+        assertTrue(wrong.err().contains("series.json") && wrong.err().contains("EchoTime"), wrong.err());
+        te.setLength(0);
+        for (int k = 1; k <= ECHOES; k++) {
+            te.append(k > 1 ? ", " : "").append(String.format(Locale.ROOT, "%.3f", k * 0.010));
+        }
+        Files.writeString(dir.resolve("series.json"), "{\"EchoTime\": [" + te + "]}\n");
+        CliRun ok = CliRun.of("fit", s.toString(), "--protocol", protocol.toString(), "--out", out.toString(), "--quiet",
+                "--b1-map", b.toString(), "--b1-map-units", "percent", "--threads", "2");
+        assertEquals(0, ok.code(), ok.err());
+        NiftiImage fitted = Nifti.read(out.resolve("b1_scale.nii.gz"));
+        assertEquals(b1(7), fitted.get(7), 1e-6);  // the percent map became the flip-angle scale
+        assertEquals(t2Ms(7), Nifti.read(out.resolve("t2_ms.nii.gz")).get(7), 1e-3 * t2Ms(7));
+    }
 }

@@ -213,4 +213,48 @@ public final class BidsProtocol {
         }
         return sb.append(']').toString();
     }
+
+    /**
+     * Checks a 4-D series against the {@code EchoTime} list of a JSON sidecar next to it
+     * ({@code X.nii[.gz]} → {@code X.json}), when there is one.
+     *
+     * @param series the series file
+     * @param echoTimesMs the protocol's echo times in ms
+     * @throws InputException if the sidecar's echo times differ in count or value (relative 1e-3)
+     */
+    public static void checkSeriesSidecar(Path series, double[] echoTimesMs) {
+        String name = series.getFileName().toString();
+        String stem = name.endsWith(".nii.gz") ? name.substring(0, name.length() - 7)
+                : name.endsWith(".nii") ? name.substring(0, name.length() - 4) : null;
+        if (stem == null) {
+            return;
+        }
+        Path json = series.resolveSibling(stem + ".json");
+        if (!java.nio.file.Files.isRegularFile(json)) {
+            return;
+        }
+        JsonNode te;
+        try {
+            te = Json.MAPPER.readTree(json.toFile()).get("EchoTime");
+        } catch (IOException e) {
+            throw new InputException(json + ": sidecar is not valid JSON (" + e.getMessage().split("\\R")[0] + ")", e);
+        }
+        if (te == null) {
+            return;
+        }
+        List<Double> side = new ArrayList<>();
+        if (te.isArray()) {
+            te.forEach(t -> side.add(t.asDouble() * 1000));
+        } else {
+            side.add(te.asDouble() * 1000);
+        }
+        boolean same = side.size() == echoTimesMs.length;
+        for (int i = 0; same && i < side.size(); i++) {
+            same = close(side.get(i), echoTimesMs[i]);
+        }
+        if (!same) {
+            throw new InputException(json + ": EchoTime " + te + " s does not match the protocol's " + echoTimesMs.length
+                    + " echo times " + list(echoTimesMs) + " ms of " + series.getFileName());
+        }
+    }
 }

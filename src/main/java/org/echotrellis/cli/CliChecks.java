@@ -106,4 +106,35 @@ final class CliChecks {
         }
         return sb.toString();
     }
+
+    /**
+     * The provenance block of a command's JSON outputs: version, command line, SHA-256 of every
+     * input file, the protocol text.
+     *
+     * @param spec the running command
+     * @param protocol the protocol file (hashed and its text included), or null
+     * @param inputs the other input files (null entries skipped)
+     * @return the block
+     */
+    static java.util.Map<String, Object> provenance(picocli.CommandLine.Model.CommandSpec spec, java.nio.file.Path protocol,
+            java.nio.file.Path... inputs) {
+        List<java.nio.file.Path> files = new java.util.ArrayList<>();
+        files.add(protocol);
+        files.addAll(java.util.Arrays.asList(inputs));
+        String text = protocol == null ? null : org.echotrellis.sequence.ProtocolText.read(protocol).text();
+        return org.echotrellis.io.Provenance.of(commandLine(spec), files, text);
+    }
+
+    /**
+     * @param json a JSON output as a map
+     * @param spec the running command
+     * @param protocol its protocol file
+     * @return a copy with a {@code provenance} block appended
+     */
+    static java.util.Map<String, Object> withProvenance(java.util.Map<String, Object> json,
+            picocli.CommandLine.Model.CommandSpec spec, java.nio.file.Path protocol) {
+        java.util.Map<String, Object> m = new java.util.LinkedHashMap<>(json);
+        m.put("provenance", provenance(spec, protocol));
+        return m;
+    }
 }

@@ -208,5 +208,17 @@ class BidsCommandTest {
         NiftiImage fitted = Nifti.read(out.resolve("b1_scale.nii.gz"));
         assertEquals(b1(7), fitted.get(7), 1e-6);  // the percent map became the flip-angle scale
         assertEquals(t2Ms(7), Nifti.read(out.resolve("t2_ms.nii.gz")).get(7), 1e-3 * t2Ms(7));
+        JsonNode prov = Json.MAPPER.readTree(out.resolve("summary.json").toFile()).get("settings").get("provenance");
+        assertTrue(prov.get("command_line").asText().startsWith("echotrellis fit "), prov.toString());
+        assertEquals(java.util.HexFormat.of().formatHex(sha256(s)), prov.get("inputs_sha256").get(s.toString()).asText());
+        assertEquals(Files.readString(protocol), prov.get("protocol").asText());
+    }
+
+    private static byte[] sha256(Path f) throws IOException {
+        try {
+            return java.security.MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(f));
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
     }
 }

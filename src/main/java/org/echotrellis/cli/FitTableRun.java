@@ -34,7 +34,7 @@ final class FitTableRun {
         this.force = force;
     }
 
-    void run(Path csv, boolean json, PrintWriter o) {
+    void run(Path csv, boolean json, PrintWriter o, Map<String, Object> provenance) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
@@ -65,6 +65,7 @@ final class FitTableRun {
         if (json) {
             Map<String, Object> root = new LinkedHashMap<>();
             root.put("fits", rows);
+            root.put("provenance", provenance);
             o.print(Json.write(root));
         } else {
             o.print(table(rows));

@@ -53,6 +53,7 @@ final class FitVolumeRun {
             if (echoes != analysis.train().echoes()) {
                 throw new InputException(data + ": " + echoes + " echoes (dim 4), but the protocol has " + analysis.train().echoes());
             }
+            org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             VolumeJob job = CliChecks.volumeJob(in, mask, b1, threads);
             for (Path f : plannedFiles(analysis.mapNames())) {
                 AtomicFiles.checkWritable(f, force);

@@ -207,7 +207,7 @@ final class SpectrumTables {
     }
 
     private static String quote(String s) {
-        return s.contains(",") || s.contains("\"") ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
+        return org.echotrellis.io.Csv.field(s);
     }
 
     private static String g(double v) {

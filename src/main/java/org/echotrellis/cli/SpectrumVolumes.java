@@ -47,6 +47,7 @@ final class SpectrumVolumes {
                 throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
                         + analysis.train().echoes());
             }
+            org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             refuseExisting(out, o, force);
             Files.createDirectories(out);
             VolumeMaps r = analysis.run(job, progress);

@@ -93,12 +93,11 @@ public final class Main implements Runnable {
         return s == null ? "" : s.split("\\R")[0];
     }
 
-    /** Version from the jar manifest, or "development". */
+    /** Version from the jar manifest ({@code Implementation-Version}), or "development" outside a jar. */
     static final class Version implements CommandLine.IVersionProvider {
         @Override
         public String[] getVersion() {
-            String v = Main.class.getPackage().getImplementationVersion();
-            return new String[] {"echotrellis " + (v == null ? "0.1.0-SNAPSHOT" : v)};
+            return new String[] {"echotrellis " + org.echotrellis.io.Provenance.version()};
         }
     }
 }

@@ -9,7 +9,8 @@ import javax.imageio.ImageIO;
 import org.echotrellis.InputException;
 
 /**
- * A 2-D integer label image, read from a grey-scale PNG (label = grey value 0–255) or from one
+ * A 2-D integer label image, read from a grey-scale PNG (label = the stored grey value, 8 or 16 bit;
+ * an RGB PNG must have equal channels, label = that value 0–255) or from one
  * z-slice of a NIfTI-1 volume (label = the voxel value, which must be a whole number). Rows run
  * along y with row 0 at the bottom: the PNG's top pixel row is the last row, as in the NIfTI voxel
  * grid. Pixel (row y, column x) is element y·cols + x. Arrays are copied on the way in and out.
@@ -70,8 +71,15 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
         int h = img.getHeight();
         checkSize(file.toString(), w, h);
         int[] labels = new int[w * h];
+        java.awt.image.Raster raster = img.getRaster();
+        boolean grey = img.getColorModel().getColorSpace().getType() == java.awt.color.ColorSpace.TYPE_GRAY
+                && !(img.getColorModel() instanceof java.awt.image.IndexColorModel);
         for (int py = 0; py < h; py++) {
             for (int x = 0; x < w; x++) {
+                if (grey) {                   // stored grey value (8 or 16 bit), no colour conversion
+                    labels[(h - 1 - py) * w + x] = raster.getSample(x, py, 0);
+                    continue;
+                }
                 int rgb = img.getRGB(x, py);
                 int r = (rgb >> 16) & 0xff;
                 int g = (rgb >> 8) & 0xff;

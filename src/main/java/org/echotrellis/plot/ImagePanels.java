@@ -1,17 +1,18 @@
 package org.echotrellis.plot;
 
-import java.awt.Color;
+import java.awt.image.BufferedImage;
 import java.util.ArrayList;
 import java.util.List;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.annotations.XYTextAnnotation;
 import org.jfree.chart.axis.NumberAxis;
 import org.jfree.chart.plot.XYPlot;
-import org.jfree.chart.renderer.GrayPaintScale;
-import org.jfree.chart.renderer.xy.XYBlockRenderer;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.title.TextTitle;
+import org.jfree.chart.ui.Align;
+import org.jfree.chart.ui.RectangleInsets;
 import org.jfree.chart.ui.TextAnchor;
-import org.jfree.data.xy.DefaultXYZDataset;
+import org.jfree.data.xy.DefaultXYDataset;
 
 /**
  * Magnitude images side by side on one grey scale (black = 0, white = the upper bound), each with a
@@ -66,41 +67,45 @@ public final class ImagePanels {
 
     /**
      * @param upper value drawn white (e.g. 1.1 × the largest ideal value)
-     * @return the styled chart
+     * @return the styled chart; the panels are one raster image behind an empty plot (compact in
+     *         SVG: an embedded PNG rather than one rectangle per pixel)
      */
     public JFreeChart build(double upper) {
+        PngForSvg.register();
         int gap = Math.max(2, cols / 12);
         int n = panels.size();
-        double[][] xyz = new double[3][n * rows * cols];
-        int k = 0;
+        int width = n * (cols + gap) - gap;
+        int band = Math.max(6, (int) Math.round(rows * 0.09));
+        int height = rows + band;
+        BufferedImage img = new BufferedImage(width, height, BufferedImage.TYPE_INT_RGB);
+        int page = ChartStyle.PAGE.getRGB();
+        for (int y = 0; y < height; y++) {
+            for (int x = 0; x < width; x++) {
+                img.setRGB(x, y, page);
+            }
+        }
+        double top = upper > 0 ? upper : 1;
         for (int p = 0; p < n; p++) {
             double[] v = panels.get(p).values();
             int x0 = p * (cols + gap);
             for (int y = 0; y < rows; y++) {
                 for (int x = 0; x < cols; x++) {
-                    xyz[0][k] = x0 + x;
-                    xyz[1][k] = y;
-                    xyz[2][k] = Math.min(upper, Math.max(0, v[y * cols + x]));
-                    k++;
+                    double f = Math.min(1, Math.max(0, v[y * cols + x] / top));
+                    int g = (int) Math.round(255 * (Double.isNaN(f) ? 0 : f));
+                    img.setRGB(x0 + x, height - 1 - y, (g << 16) | (g << 8) | g);   // row 0 at the bottom
                 }
             }
         }
-        DefaultXYZDataset data = new DefaultXYZDataset();
-        data.addSeries("images", xyz);
-        XYBlockRenderer renderer = new XYBlockRenderer();
-        renderer.setPaintScale(new GrayPaintScale(0, upper > 0 ? upper : 1));
         NumberAxis xAxis = new NumberAxis();
         NumberAxis yAxis = new NumberAxis();
-        double width = n * (cols + gap) - gap;
-        xAxis.setRange(-0.5, width - 0.5);
-        double top = rows + Math.max(6, rows * 0.09);
-        yAxis.setRange(-0.5, top);
+        xAxis.setRange(0, width);
+        yAxis.setRange(0, height);
         xAxis.setVisible(false);
         yAxis.setVisible(false);
-        XYPlot plot = new XYPlot(data, xAxis, yAxis, renderer);
+        XYPlot plot = new XYPlot(new DefaultXYDataset(), xAxis, yAxis, new XYLineAndShapeRenderer());
         for (int p = 0; p < n; p++) {
             XYTextAnnotation a = new XYTextAnnotation(panels.get(p).caption(), p * (cols + gap) + cols / 2.0,
-                    rows + (top - rows) / 2);
+                    rows + band / 2.0);
             a.setFont(ChartStyle.TICK_FONT);
             a.setPaint(ChartStyle.INK);
             a.setTextAnchor(TextAnchor.CENTER);
@@ -112,10 +117,13 @@ public final class ImagePanels {
         }
         ChartStyle.apply(chart);
         plot.setBackgroundPaint(ChartStyle.PAGE);
+        plot.setBackgroundImage(img);
+        plot.setBackgroundImageAlignment(Align.FIT);
+        plot.setBackgroundImageAlpha(1f);
         plot.setOutlineVisible(false);
         plot.setDomainGridlinesVisible(false);
         plot.setRangeGridlinesVisible(false);
-        plot.getRenderer().setDefaultOutlinePaint(Color.BLACK);
+        plot.setAxisOffset(RectangleInsets.ZERO_INSETS);
         return chart;
     }
 

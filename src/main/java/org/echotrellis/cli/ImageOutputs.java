@@ -58,7 +58,7 @@ final class ImageOutputs {
     /** A plain-text table of the tissues and the pairs. */
     static String table(ImageReport r, String protocolName) {
         StringBuilder sb = new StringBuilder();
-        sb.append(String.format(Locale.ROOT, "%s: %d lines, %d echoes per train, %d shots, %s ordering%n", protocolName,
+        sb.append(String.format(Locale.ROOT, "%s: %d lines, %d echoes per train, %d shots, ordering %s%n", protocolName,
                 r.ordering().lines(), r.ordering().echoes(), r.ordering().shots(), r.ordering().describe()));
         sb.append(String.format(Locale.ROOT, "%-22s %9s %9s %10s %12s %10s %9s %10s%n", "tissue", "T1_ms", "T2_ms",
                 "eff_TE_ms", "center_sig", "fwhm_px", "psf_peak", "sidelobe"));

@@ -16,7 +16,6 @@ import org.echotrellis.image.KSpaceOrdering;
 import org.echotrellis.image.Phantom;
 import org.echotrellis.image.PhantomImager;
 import org.echotrellis.image.PhantomImages;
-import org.echotrellis.image.TissueImage;
 import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
 import org.echotrellis.io.LabelImage;
@@ -273,10 +272,5 @@ public final class ImageCommand implements Callable<Integer> {
     private String phantomCaption(Phantom ph, PhantomImages img) {
         return String.format(Locale.ROOT, "%s; %d x %d; noise sd %.3g (seed %d); phase encoding vertical",
                 ph.description(), img.rows(), img.cols(), img.noiseSd(), img.seed());
-    }
-
-    /** Used by tests: the names of the tissues in report order. */
-    static List<String> names(ImageReport r) {
-        return r.tissues().stream().map(TissueImage::name).toList();
     }
 }

@@ -74,14 +74,14 @@ class ImageCommandTest {
     @Test
     void plotWritesThreeChartsAndRefusesToOverwrite() throws Exception {
         Path plot = tmp.resolve("brain.png");
-        CliRun r = CliRun.of("image", PROTOCOL, "--phase-lines", "64", "--center-echo", "8", "--tissue",
+        CliRun r = CliRun.of("image", PROTOCOL, "--phase-lines", "32", "--center-echo", "8", "--tissue",
                 "white_matter_3t", "--tissue", "csf:4300:1900", "--noise-sd", "0.01", "--plot", plot.toString());
         assertEquals(0, r.code(), r.err());
         for (String c : List.of("weights", "psf", "phantom")) {
             BufferedImage img = ImageIO.read(tmp.resolve("brain-" + c + ".png").toFile());
             assertTrue(img.getWidth() > 300 && img.getHeight() > 200, c);
         }
-        CliRun again = CliRun.of("image", PROTOCOL, "--phase-lines", "64", "--plot", plot.toString());
+        CliRun again = CliRun.of("image", PROTOCOL, "--phase-lines", "32", "--plot", plot.toString());
         assertEquals(2, again.code());
         assertTrue(again.err().contains("exists; use --force"), again.err());
         assertEquals("", again.out(), "nothing printed before the refusal");
@@ -109,7 +109,7 @@ class ImageCommandTest {
         }
         Path png = tmp.resolve("labels.png");
         ImageIO.write(img, "png", png.toFile());
-        CliRun r = CliRun.of("image", PROTOCOL, "--phase-lines", "64", "--tissue", "white_matter_3t",
+        CliRun r = CliRun.of("image", PROTOCOL, "--phase-lines", "32", "--tissue", "white_matter_3t",
                 "--tissue", "grey_matter_3t", "--phantom", png.toString(), "--label", "1=white_matter_3t",
                 "--label", "2=grey_matter_3t", "--plot", tmp.resolve("p.svg").toString());
         assertEquals(0, r.code(), r.err());

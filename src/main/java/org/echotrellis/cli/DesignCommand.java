@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.design.DesignJob;
 import org.echotrellis.design.DesignProblem;
 import org.echotrellis.design.DesignReport;
@@ -171,9 +172,27 @@ public final class DesignCommand implements Callable<Integer> {
         RfExposure rf = rf();
         SarReference reference = reference(p, train, rf);
         List<Tissue> compare = compareTissues(tissueName);
-        if (out != null) {
-            DesignOutputs.checkWritable(out, force);
+        try (OutputSet set = out == null ? null : DesignOutputs.open(out, force, inputs())) {
+            return run(p, problem, limits, rf, reference, compare, set);
         }
+    }
+
+    /** Input files of this run, never written over. */
+    private List<Path> inputs() {
+        List<Path> in = new ArrayList<>(java.util.Arrays.asList(protocol, referenceProtocol));
+        if (goal.target != null && goal.target.startsWith("list:")) {
+            in.add(Path.of(goal.target.substring(5)));
+        }
+        for (String shape : java.util.Arrays.asList(pulse, excitationPulse)) {
+            if (shape != null && !shape.contains(":")) {
+                in.add(Path.of(shape));
+            }
+        }
+        return in;
+    }
+
+    private int run(Protocol p, DesignProblem problem, ExposureLimits limits, RfExposure rf, SarReference reference,
+            List<Tissue> compare, OutputSet set) {
         PrintWriter err = spec.commandLine().getErr();
         DesignReport report;
         if (goal.target != null) {
@@ -193,6 +212,7 @@ public final class DesignCommand implements Callable<Integer> {
         if (out != null) {
             String protocolName = name != null ? name : p.name() + "-designed";
             DesignOutputs.write(report, out, protocolName, force);
+            set.commit();
             if (!quiet) {
                 err.println("design: wrote " + out.resolve(DesignOutputs.SCHEDULE_FILE) + ", design.json and plots");
                 err.flush();

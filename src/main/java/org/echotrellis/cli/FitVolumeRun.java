@@ -12,12 +12,12 @@ import org.echotrellis.InputException;
 import org.echotrellis.fit.FitModel;
 import org.echotrellis.fit.FitSettings;
 import org.echotrellis.fit.T2Fit;
-import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.BackgroundNoise;
 import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumePipeline;
@@ -33,9 +33,11 @@ final class FitVolumeRun {
     private final Path outDir;
     private final boolean force;
     private final boolean quiet;
+    private final Path protocolFile;
 
     FitVolumeRun(FitSettings settings, FitModel model, boolean compareMono, String noiseSigma, Path outDir,
-            boolean force, boolean quiet) {
+            boolean force, boolean quiet, Path protocolFile) {
+        this.protocolFile = protocolFile;
         this.settings = settings;
         this.model = model;
         this.compareMono = compareMono;
@@ -54,7 +56,8 @@ final class FitVolumeRun {
             PrintWriter err) {
         Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
         Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read);
-        try (NiftiInput in = Nifti.open(data)) {
+        try (NiftiInput in = Nifti.open(data);
+                OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile))) {
             NiftiHeader h = in.header();
             int echoes = h.volumes();
             if (echoes != settings.train().echoes()) {
@@ -67,14 +70,12 @@ final class FitVolumeRun {
             }
             info.put("noise_sigma", Double.isNaN(sigma) ? null : sigma);
             T2Fit.Factory factory = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, compareMono);
-            List<Path> files = plannedFiles(factory.outputs());
-            for (Path f : files) {
-                AtomicFiles.checkWritable(f, force);
-            }
+            set.plan(plannedFiles(factory.outputs()));
             VolumeResult res = VolumePipeline.run(job, factory, new StderrProgressBar(err, quiet));
             res.writeMaps(outDir, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
+            set.commit();
             double[] t2 = res.fittedValues("t2_ms");
             o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
                     res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
@@ -83,16 +84,16 @@ final class FitVolumeRun {
         }
     }
 
-    private List<Path> plannedFiles(List<String> outputs) {
-        List<Path> f = new ArrayList<>();
+    private static List<String> plannedFiles(List<String> outputs) {
+        List<String> f = new ArrayList<>();
         for (String n : outputs) {
-            f.add(outDir.resolve(n + ".nii.gz"));
+            f.add(n + ".nii.gz");
         }
-        f.add(outDir.resolve("status.nii.gz"));
-        f.add(outDir.resolve("summary.json"));
+        f.add("status.nii.gz");
+        f.add("summary.json");
         for (String[] p : PREVIEWS) {
             if (outputs.contains(p[0]) || p[0].equals("status")) {
-                f.add(outDir.resolve(p[0] + ".png"));
+                f.add(p[0] + ".png");
             }
         }
         return f;

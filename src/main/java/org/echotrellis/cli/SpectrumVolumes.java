@@ -16,6 +16,7 @@ import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.ProgressReporter;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
@@ -34,21 +35,21 @@ final class SpectrumVolumes {
 
     static VolumeResult run(Path data, Path mask, BasisCache cache, SpectrumOptions o, int threads, Path out,
                             boolean force, Map<String, Object> settings, ProgressReporter progress,
-                            PrintWriter stdout) throws Exception {
+                            PrintWriter stdout, List<Path> inputs) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
-        try (NiftiInput in = Nifti.open(data)) {
+        try (NiftiInput in = Nifti.open(data); OutputSet set = OutputSet.open(out, force, inputs)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
             VolumeJob job = new VolumeJob(in, m, Optional.empty(), threads, VolumeJob.DEFAULT_SLAB_VALUES);
             if (job.echoes() != cache.echoes()) {
                 throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
                         + cache.echoes());
             }
-            refuseExisting(out, o, force);
-            Files.createDirectories(out);
+            set.plan(plannedFiles(o));
             VolumeResult r = VolumePipeline.run(job, new SpectrumKernel.Factory(cache, o), progress);
             write(r, o, out, force, settings);
+            set.commit();
             stdout.printf(Locale.ROOT, "spectrum: %d voxels fitted in %.1f s (%.0f voxels/s); outputs in %s%n",
                     r.processed(), r.seconds(), r.voxelsPerSecond(), out);
             stdout.flush();
@@ -91,22 +92,16 @@ final class SpectrumVolumes {
         RunSummary.write(out.resolve("summary.json"), r, s, force);
     }
 
-    /** Fails before any work if an output exists and --force is not given (same message as the writer). */
-    static void refuseExisting(Path out, SpectrumOptions o, boolean force) {
-        if (force) {
-            return;
-        }
+    /** The files a run writes, checked before any work. */
+    static List<String> plannedFiles(SpectrumOptions o) {
         List<String> names = new ArrayList<>(List.of("spectrum.nii.gz", "status.nii.gz", "summary.json"));
         for (String n : SpectrumNames.scalars(o)) {
             names.add(n + ".nii.gz");
-            names.add(n + ".png");
-        }
-        for (String n : names) {
-            Path f = out.resolve(n);
-            if (Files.exists(f)) {
-                throw new InputException(f + " exists; use --force to overwrite");
+            if (!n.equals("chi2_unregularised")) {
+                names.add(n + ".png");
             }
         }
+        return names;
     }
 
     private static List<String> outputs(List<String> scalars) {

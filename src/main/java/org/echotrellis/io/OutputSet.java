@@ -146,6 +146,22 @@ public final class OutputSet implements AutoCloseable {
         }
     }
 
+    /**
+     * Where a file written earlier in this run can be read back: its staged copy while the set
+     * holding it is open, otherwise the path itself.
+     *
+     * @param target the output path
+     * @return the path to read
+     */
+    public static Path readable(Path target) {
+        Optional<OutputSet> s = enclosing(target);
+        String name = target.getFileName().toString();
+        if (s.isPresent() && s.get().written.contains(name)) {
+            return s.get().staging.resolve(name);
+        }
+        return target;
+    }
+
     /** The open set whose directory holds {@code target}, if any. */
     static Optional<OutputSet> enclosing(Path target) {
         Path parent = target.toAbsolutePath().normalize().getParent();

@@ -54,15 +54,19 @@ final class FitVolumeRun {
 
     VolumeResult run(Path data, Path maskFile, Path b1File, int threads, Map<String, Object> info, PrintWriter o,
             PrintWriter err) {
-        Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
-        Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read);
-        try (NiftiInput in = Nifti.open(data);
-                OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile))) {
+        // every header is checked (series against protocol, mask and B1 map against the series)
+        // before any file is inflated or any voxel array allocated
+        NiftiHeader grid = Nifti.readHeader(data);
+        VolumeJob.checkSeries(grid, data.toString(), settings.train().echoes());
+        Nifti.checkOnGrid(maskFile, grid, "--mask");
+        Nifti.checkOnGrid(b1File, grid, "--b1-map");
+        try (OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile));
+                NiftiInput in = Nifti.open(data)) {
             NiftiHeader h = in.header();
-            int echoes = h.volumes();
-            if (echoes != settings.train().echoes()) {
-                throw new InputException(data + ": " + echoes + " echoes (dim 4), but the protocol has " + settings.train().echoes());
-            }
+            VolumeJob.checkSeries(h, data.toString(), settings.train().echoes());
+            // headers are checked against the series before any voxel data are inflated or read
+            Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(f -> Nifti.readOnGrid(f, h, "--mask"));
+            Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(f -> Nifti.readOnGrid(f, h, "--b1-map"));
             VolumeJob job = new VolumeJob(in, mask, b1, threads, VolumeJob.DEFAULT_SLAB_VALUES);
             double sigma = Double.NaN;
             if (noiseSigma != null) {
@@ -72,6 +76,7 @@ final class FitVolumeRun {
             T2Fit.Factory factory = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, compareMono);
             set.plan(plannedFiles(factory.outputs()));
             VolumeResult res = VolumePipeline.run(job, factory, new StderrProgressBar(err, quiet));
+            refuseNothingFitted(res, job, b1File);
             res.writeMaps(outDir, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
@@ -82,6 +87,38 @@ final class FitVolumeRun {
             o.flush();
             return res;
         }
+    }
+
+    /** A run in which no voxel inside the mask could be fitted is an input error, with a hint where one is clear. */
+    private static void refuseNothingFitted(VolumeResult res, VolumeJob job, Path b1File) {
+        long fitted = res.statusCounts().entrySet().stream().filter(e -> e.getKey().fitted())
+                .mapToLong(Map.Entry::getValue).sum();
+        if (res.processed() == 0 || fitted > 0) {
+            return;
+        }
+        String hint = "";
+        if (job.b1Map().isPresent()) {
+            double[] inside = new double[job.voxels()];
+            int n = 0;
+            for (int v = 0; v < job.voxels(); v++) {
+                double b = job.b1Map().get().get(v);
+                if (job.inside(v) && Double.isFinite(b)) {
+                    inside[n++] = b;
+                }
+            }
+            double[] sorted = java.util.Arrays.copyOf(inside, n);
+            java.util.Arrays.sort(sorted);
+            double median = RunSummary.percentile(sorted, 50);
+            if (median > 10) {
+                hint = String.format(Locale.ROOT, "; --b1-map %s: median %.4g, values look like percent; this option "
+                        + "takes scale factors (1 = nominal flip)", b1File, median);
+            }
+        }
+        throw new InputException("no voxel could be fitted (" + res.processed() + " inside the mask: "
+                + res.statusCounts().entrySet().stream()
+                        .filter(e -> e.getValue() > 0 && e.getKey() != org.echotrellis.io.VoxelStatus.OUTSIDE_MASK)
+                        .map(e -> e.getValue() + " " + e.getKey().label()).collect(java.util.stream.Collectors.joining(", "))
+                + ")" + hint);
     }
 
     private static List<String> plannedFiles(List<String> outputs) {

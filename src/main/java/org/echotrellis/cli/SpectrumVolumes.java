@@ -39,13 +39,13 @@ final class SpectrumVolumes {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
-        try (NiftiInput in = Nifti.open(data); OutputSet set = OutputSet.open(out, force, inputs)) {
-            Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
+        NiftiHeader grid = Nifti.readHeader(data);  // headers first: nothing inflated before they agree
+        VolumeJob.checkSeries(grid, data.toString(), cache.echoes());
+        Nifti.checkOnGrid(mask, grid, "--mask");
+        try (OutputSet set = OutputSet.open(out, force, inputs); NiftiInput in = Nifti.open(data)) {
+            VolumeJob.checkSeries(in.header(), data.toString(), cache.echoes());
+            Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.readOnGrid(mask, in.header(), "--mask"));
             VolumeJob job = new VolumeJob(in, m, Optional.empty(), threads, VolumeJob.DEFAULT_SLAB_VALUES);
-            if (job.echoes() != cache.echoes()) {
-                throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
-                        + cache.echoes());
-            }
             set.plan(plannedFiles(o));
             VolumeResult r = VolumePipeline.run(job, new SpectrumKernel.Factory(cache, o), progress);
             write(r, o, out, force, settings);

@@ -39,6 +39,7 @@ public final class Nifti {
      */
     public static NiftiInput open(Path file) {
         String where = file.toString();
+        InputFiles.requireRegular(file, where);
         try {
             byte[] head = new byte[2];
             try (InputStream in = Files.newInputStream(file)) {
@@ -68,12 +69,94 @@ public final class Nifti {
         } catch (NoSuchFileException e) {
             throw new InputException(where + ": file not found");
         } catch (IOException e) {
-            throw new InputException(where + ": cannot read (" + e.getMessage() + ")", e);
+            throw InputFiles.readFailure(where, e);
+        }
+    }
+
+    /** Free space kept after inflating: a tenth of what is free, at least 64 MB (common practice). */
+    static long freeSpaceMargin(long free) {
+        return Math.max(free / 10, 64L << 20);
+    }
+
+    /**
+     * Reads only the header (inflating the first 348 bytes of a {@code .nii.gz}), so shapes can be
+     * checked before any voxel data are inflated or allocated.
+     *
+     * @param file .nii or .nii.gz
+     * @return the header
+     * @throws InputException for a missing, unreadable or non-NIfTI file
+     */
+    public static NiftiHeader readHeader(Path file) {
+        String where = file.toString();
+        InputFiles.requireRegular(file, where);
+        try (InputStream raw = new BufferedInputStream(Files.newInputStream(file))) {
+            raw.mark(2);
+            int b0 = raw.read();
+            int b1 = raw.read();
+            raw.reset();
+            InputStream in = b0 == 0x1f && b1 == 0x8b ? new GZIPInputStream(raw, CHUNK) : raw;
+            return NiftiHeader.decode(in.readNBytes(NiftiHeader.HEADER_SIZE), where);
+        } catch (ZipException | java.io.EOFException e) {
+            throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
+        } catch (IOException e) {
+            throw InputFiles.readFailure(where, e);
+        }
+    }
+
+    /**
+     * Reads a 3-D image that must lie on the grid of a series, checking its header first so a
+     * mismatched or oversized file is refused before its data are inflated or allocated.
+     *
+     * @param file the image (.nii or .nii.gz)
+     * @param grid header of the series
+     * @param option the option naming the file in messages, e.g. {@code --mask}
+     * @return the image
+     * @throws InputException naming both shapes when they differ
+     */
+    public static NiftiImage readOnGrid(Path file, NiftiHeader grid, String option) {
+        checkOnGrid(file, grid, option);
+        return read(file);
+    }
+
+    /**
+     * Checks from its header alone that a 3-D image lies on the grid of a series.
+     *
+     * @param file the image (.nii or .nii.gz); null is accepted and ignored
+     * @param grid header of the series
+     * @param option the option naming the file in messages
+     * @throws InputException naming both shapes when they differ
+     */
+    public static void checkOnGrid(Path file, NiftiHeader grid, String option) {
+        if (file != null) {
+            VolumeJob.sameGrid(grid, readHeader(file), option, file.toString());
+        }
+    }
+
+    private static final String TEMP_PREFIX = "echotrellis-inflated-";
+
+    /** Removes inflated copies left by processes that no longer run (killed with SIGKILL). */
+    private static void cleanStaleTemporaries(Path tmpDir) {
+        try (java.nio.file.DirectoryStream<Path> ds = Files.newDirectoryStream(tmpDir, TEMP_PREFIX + "*.nii")) {
+            for (Path p : ds) {
+                String rest = p.getFileName().toString().substring(TEMP_PREFIX.length());
+                try {
+                    long pid = Long.parseLong(rest.substring(0, rest.indexOf('-')));
+                    if (ProcessHandle.of(pid).isEmpty()) {
+                        Files.deleteIfExists(p);
+                    }
+                } catch (RuntimeException | IOException ignored) {
+                    // not one of ours, or already gone
+                }
+            }
+        } catch (IOException | RuntimeException ignored) {
+            // best effort
         }
     }
 
     private static NiftiInput openCompressed(Path file, String where) throws IOException {
-        Path tmp = Files.createTempFile("echotrellis-", ".nii");
+        Path tmpDir = Path.of(System.getProperty("java.io.tmpdir"));
+        cleanStaleTemporaries(tmpDir);
+        Path tmp = Files.createTempFile(tmpDir, TEMP_PREFIX + ProcessHandle.current().pid() + "-", ".nii");
         tmp.toFile().deleteOnExit();
         try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(file)), CHUNK);
                 OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
@@ -81,9 +164,10 @@ public final class Nifti {
             NiftiHeader h = NiftiHeader.decode(hb, where);
             long need = h.voxOffset() + h.dataBytes();
             long free = Files.getFileStore(tmp).getUsableSpace();
-            if (need > free) {
-                throw new InputException(where + ": header declares " + need + " bytes, more than the " + free
-                        + " bytes free for its inflated temporary copy; refused");
+            if (need > free - freeSpaceMargin(free)) {
+                throw new InputException(where + ": header declares " + need + " bytes; its inflated temporary copy in "
+                        + tmpDir + " would leave less than " + (freeSpaceMargin(free) >> 20) + " MB of the " + (free >> 20)
+                        + " MB free; refused (set java.io.tmpdir to a larger disk, or decompress the file)");
             }
             out.write(hb);
             long have = hb.length;

@@ -376,10 +376,13 @@ public final class NiftiHeader {
             p[i] = b.getFloat(76 + 4 * i);
         }
         double off = b.getFloat(108);
-        if (!(off >= 0) || off > 1e12) {
-            throw new InputException(where + ": vox_offset must be a finite number >= 352, got " + off);
+        if (!(off >= MIN_VOX_OFFSET) || off > 1e12 || off != Math.rint(off)) {
+            // a single-file NIfTI-1 keeps its data after the 352-byte header (nifti1.h): any smaller
+            // offset, negative or positive, would read the header as voxel data
+            throw new InputException(where + ": vox_offset must be a whole number >= 352 (data after the header), got "
+                    + (off == Math.rint(off) && Math.abs(off) < 1e12 ? String.valueOf((long) off) : String.valueOf(off)));
         }
-        long voxOffset = Math.max(MIN_VOX_OFFSET, (long) off);
+        long voxOffset = (long) off;
         // non-finite scaling fields (NaN is what writers leave when they do not scale) read as 0,
         // and scl_slope = 0 means unscaled (nifti1.h)
         double slope = finiteOrZero(b.getFloat(112));

@@ -11,6 +11,7 @@ import java.util.Arrays;
 import java.util.List;
 
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * Reads a decay table from CSV: a header row of names, then one row per echo. The first column
@@ -31,10 +32,13 @@ public final class DecayTableReader {
     public static DecayTable read(Path file) {
         String where = file.toString();
         List<String> lines;
+        InputFiles.requireRegular(file, where);
         try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
             lines = r.lines().toList();
         } catch (NoSuchFileException e) {
             throw new InputException(where + ": file not found");
+        } catch (java.nio.file.AccessDeniedException e) {
+            throw InputFiles.readFailure(where, e);
         } catch (IOException | java.io.UncheckedIOException e) {
             throw new InputException(where + ": cannot read as UTF-8 text (" + e.getMessage() + ")", e);
         }

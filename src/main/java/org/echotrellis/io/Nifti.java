@@ -16,6 +16,7 @@ import java.util.zip.GZIPOutputStream;
 import java.util.zip.ZipException;
 
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * Reading and writing NIfTI-1 single files ({@code .nii}, and {@code .nii.gz}: the whole file

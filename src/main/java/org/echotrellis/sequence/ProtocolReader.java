@@ -18,6 +18,7 @@ import java.util.Optional;
 import java.util.Set;
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 import org.echotrellis.epg.CpmgTrain;
 import org.yaml.snakeyaml.LoaderOptions;
 
@@ -67,18 +68,13 @@ public final class ProtocolReader {
         }
         byte[] bytes;
         try {
-            if (Files.isDirectory(file)) {
-                throw new InputException(name + ": is a directory, expected a protocol file");
-            }
-            if (!Files.isRegularFile(file)) {
-                throw new InputException(name + ": no such file");
-            }
+            InputFiles.requireRegular(file, name);
             if (Files.size(file) > MAX_FILE_BYTES) {
                 throw new InputException(name + ": file larger than " + MAX_FILE_BYTES + " bytes");
             }
             bytes = Files.readAllBytes(file);
         } catch (IOException e) {
-            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
+            throw InputFiles.readFailure(name, e);
         }
         return parse(new String(bytes, StandardCharsets.UTF_8), name, yaml);
     }

@@ -1,11 +1,11 @@
-package org.echotrellis.io;
+package org.echotrellis;
 
 import java.io.IOException;
 import java.nio.file.AccessDeniedException;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import org.echotrellis.InputException;
 
 /**
  * Checks on input files before they are opened: a missing file, a directory, a FIFO, a device
@@ -49,6 +49,7 @@ public final class InputFiles {
         if (e instanceof NoSuchFileException) {
             return new InputException(where + ": file not found", e);
         }
-        return new InputException(where + ": cannot read (" + WriteFailure.reason(e) + ")", e);
+        String reason = e instanceof FileSystemException f && f.getReason() != null ? f.getReason() : e.getMessage();
+        return new InputException(where + ": cannot read (" + reason + ")", e);
     }
 }

@@ -109,6 +109,7 @@ final class FitTableRun {
     }
 
     private static void checkTimes(DecayTable t, CpmgTrain train) {
+        Tables.requireHeaderRow(t);
         if (t.echoes() != train.echoes()) {
             throw new InputException(t.source() + ": " + t.echoes() + " echoes, but the protocol has " + train.echoes());
         }

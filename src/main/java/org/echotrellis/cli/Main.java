@@ -139,8 +139,9 @@ public final class Main implements Runnable {
         return code;
     }
 
+    /** First line of a message, with control characters (an ESC from a file name or protocol) as '?'. */
     private static String oneLine(String s) {
-        return s == null ? "" : s.split("\\R")[0];
+        return s == null ? "" : s.split("\\R")[0].replaceAll("[\\p{Cc}\\p{Cf}]", "?");
     }
 
     /** Version from the jar manifest, or "development". */

@@ -63,6 +63,7 @@ final class SpectrumTables {
 
     /** Refuses a table whose echo count or echo times differ from the protocol. */
     static void checkEchoes(DecayTable t, Protocol p) {
+        Tables.requireHeaderRow(t);
         double[] want = p.echoTimesMs();
         double[] got = t.echoTimesMs();
         if (got.length != want.length) {

@@ -13,8 +13,8 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Issue 10 §2: a {@code --sweep} needs bounded heap whatever the grid size. A forked JVM with a
- * 64 MB heap writes a 250 000-point sweep (before the chunk bound, one chunk of this grid held
- * about 20 MB of magnitudes and twice 29 MB of text and ran out of memory).
+ * 64 MB heap writes a 250 000-point sweep (before the chunk bound this grid was one chunk holding
+ * about 20 MB of magnitudes plus the whole chunk as text, 29 MB, copied while growing and once more).
  */
 class SweepMemoryTest {
     @TempDir

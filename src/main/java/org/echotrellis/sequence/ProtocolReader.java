@@ -68,6 +68,12 @@ public final class ProtocolReader {
         }
         byte[] bytes;
         try {
+            if (Files.isDirectory(file)) {
+                throw new InputException(name + ": is a directory, expected a protocol file");
+            }
+            if (!Files.exists(file)) {
+                throw new InputException(name + ": no such file");
+            }
             InputFiles.requireRegular(file, name);
             if (Files.size(file) > MAX_FILE_BYTES) {
                 throw new InputException(name + ": file larger than " + MAX_FILE_BYTES + " bytes");

@@ -128,9 +128,15 @@ class AdversarialOutputsTest {
     void aMaskBombIsRefusedByItsHeaderBeforeInflating() throws Exception {
         Path s = series(dir.resolve("s.nii"), 2, 2);
         // the header declares 2048 x 1024 x 100 bytes; the data stop after 1 KB: only the header is read
+        Path small = dir.resolve("small.nii");
+        org.echotrellis.io.Nifti.write(small, NiftiHeader.create(NiftiDatatype.UINT8, 1, 1, 1), new double[1], false);
+        java.nio.ByteBuffer h = java.nio.ByteBuffer.wrap(Files.readAllBytes(small), 0, 352)
+                .order(java.nio.ByteOrder.LITTLE_ENDIAN);
+        assertEquals(348, h.getInt(0));
+        h.putShort(42, (short) 2048).putShort(44, (short) 1024).putShort(46, (short) 100);
         ByteArrayOutputStream gz = new ByteArrayOutputStream();
         try (GZIPOutputStream z = new GZIPOutputStream(gz)) {
-            z.write(NiftiHeader.create(NiftiDatatype.UINT8, 2048, 1024, 100).encode());
+            z.write(h.array(), 0, 352);
             z.write(new byte[1024]);
         }
         Path mask = Files.write(dir.resolve("mask.nii.gz"), gz.toByteArray());
@@ -176,7 +182,7 @@ class AdversarialOutputsTest {
         for (int k = 1; k <= 16; k++) {
             csv.append(9.0 * k);
             for (int c = 0; c < cols; c++) {
-                double v = c == 7 ? (k % 2 == 0 ? 1.8e308 : -1.8e308) : 1000 * Math.exp(-9.0 * k / (20 + c));
+                String v = c == 7 ? (k % 2 == 0 ? "1.8e308" : "-1.7e308") : String.valueOf(1000 * Math.exp(-9.0 * k / (20 + c)));
                 csv.append(',').append(v);
             }
             csv.append('\n');

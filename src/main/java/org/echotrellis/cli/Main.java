@@ -60,6 +60,15 @@ public final class Main implements Runnable {
         PrintWriter e = CheckedWriter.printWriter(err, "standard error", true);
         cl.setOut(o);
         cl.setErr(e);
+        // a failed write while printing help or version reaches the execution-error handler too
+        CommandLine.IExecutionStrategy strategy = cl.getExecutionStrategy();
+        cl.setExecutionStrategy(parsed -> {
+            try {
+                return strategy.execute(parsed);
+            } catch (WriteFailure f) {
+                throw new CommandLine.ExecutionException(cl, f.getMessage(), f);
+            }
+        });
         try {
             int code = cl.execute(args);
             o.flush();

@@ -82,6 +82,15 @@ class WriteFailureExitTest {
     }
 
     @Test
+    void helpOntoAFullStdoutFailsWithExit3() {
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int[] code = new int[1];
+        String msg = run(new FullDisk(100), err, code, "fit", "--help");
+        assertEquals(3, code[0], msg);
+        assertEquals(1, msg.strip().lines().count(), msg);
+    }
+
+    @Test
     void failingStderrStillGivesExit3() {
         int[] code = new int[1];
         code[0] = Main.run(Main.newCommandLine(), new FullDisk(0), new FullDisk(0),

@@ -9,10 +9,8 @@ import java.util.Map;
 import java.util.Optional;
 
 import org.echotrellis.InputException;
-import org.echotrellis.fit.FitModel;
-import org.echotrellis.fit.FitSettings;
-import org.echotrellis.fit.T2Fit;
-import org.echotrellis.io.BackgroundNoise;
+import org.echotrellis.fit.volume.VolumeAnalysis;
+import org.echotrellis.fit.volume.VolumeMaps;
 import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
@@ -20,31 +18,27 @@ import org.echotrellis.io.NiftiInput;
 import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
-import org.echotrellis.io.VolumePipeline;
 import org.echotrellis.io.VolumeResult;
+import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.MapPreview;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
 final class FitVolumeRun {
-    private final FitSettings settings;
-    private final FitModel model;
-    private final boolean compareMono;
-    private final String noiseSigma;
+    private final VolumeAnalysis analysis;
     private final Path outDir;
     private final boolean force;
     private final boolean quiet;
+    private final float outsideMask;
     private final Path protocolFile;
 
-    FitVolumeRun(FitSettings settings, FitModel model, boolean compareMono, String noiseSigma, Path outDir,
-            boolean force, boolean quiet, Path protocolFile) {
+    FitVolumeRun(VolumeAnalysis analysis, Path outDir, boolean force, boolean quiet, float outsideMask,
+            Path protocolFile) {
         this.protocolFile = protocolFile;
-        this.settings = settings;
-        this.model = model;
-        this.compareMono = compareMono;
-        this.noiseSigma = noiseSigma;
+        this.analysis = analysis;
         this.outDir = outDir;
         this.force = force;
         this.quiet = quiet;
+        this.outsideMask = outsideMask;
     }
 
     /** Map names that get a PNG preview, with their colour-bar labels. */
@@ -52,32 +46,27 @@ final class FitVolumeRun {
         {"t2_ms", "T2 (ms)"}, {"mono_t2_ms", "mono-exponential T2 (ms)"}, {"b1_scale", "B1 scale"},
         {"amplitude", "amplitude"}, {"status", "status code"}};
 
-    VolumeResult run(Path data, Path maskFile, Path b1File, int threads, Map<String, Object> info, PrintWriter o,
-            PrintWriter err) {
+    VolumeMaps run(Path data, Path maskFile, Path b1File, FitCommand.B1Units b1Units, int threads,
+            Map<String, Object> info, PrintWriter o, PrintWriter err) {
         // every header is checked (series against protocol, mask and B1 map against the series)
         // before any file is inflated or any voxel array allocated
         NiftiHeader grid = Nifti.readHeader(data);
-        VolumeJob.checkSeries(grid, data.toString(), settings.train().echoes());
+        VolumeJob.checkSeries(grid, data.toString(), analysis.train().echoes());
         Nifti.checkOnGrid(maskFile, grid, "--mask");
         Nifti.checkOnGrid(b1File, grid, "--b1-map");
         try (OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile));
                 NiftiInput in = Nifti.open(data)) {
             NiftiHeader h = in.header();
-            VolumeJob.checkSeries(h, data.toString(), settings.train().echoes());
-            // headers are checked against the series before any voxel data are inflated or read
-            Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(f -> Nifti.readOnGrid(f, h, "--mask"));
-            Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(f -> Nifti.readOnGrid(f, h, "--b1-map"));
-            VolumeJob job = new VolumeJob(in, mask, b1, threads, VolumeJob.DEFAULT_SLAB_VALUES);
-            double sigma = Double.NaN;
-            if (noiseSigma != null) {
-                sigma = noiseSigma.equals("auto") ? BackgroundNoise.sigma(job) : FitCommand.parseSigma(noiseSigma);
-            }
-            info.put("noise_sigma", Double.isNaN(sigma) ? null : sigma);
-            T2Fit.Factory factory = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, compareMono);
-            set.plan(plannedFiles(factory.outputs()));
-            VolumeResult res = VolumePipeline.run(job, factory, new StderrProgressBar(err, quiet));
+            Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
+            Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read)
+                    .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);
+            VolumeJob job = CliChecks.volumeJob(in, mask, b1, threads);
+            set.plan(plannedFiles(analysis.mapNames()));
+            VolumeMaps maps = analysis.run(job, new StderrProgressBar(err, quiet));
+            info.put("noise_sigma", Double.isNaN(maps.noiseSigma()) ? null : maps.noiseSigma());
+            VolumeResult res = maps.result();
             refuseNothingFitted(res, job, b1File);
-            res.writeMaps(outDir, force);
+            maps.write(outDir, outsideMask, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
             set.commit();
@@ -85,7 +74,7 @@ final class FitVolumeRun {
             o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
                     res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
             o.flush();
-            return res;
+            return maps;
         }
     }
 
@@ -111,12 +100,12 @@ final class FitVolumeRun {
             double median = RunSummary.percentile(sorted, 50);
             if (median > 10) {
                 hint = String.format(Locale.ROOT, "; --b1-map %s: median %.4g, values look like percent; this option "
-                        + "takes scale factors (1 = nominal flip)", b1File, median);
+                        + "takes scale factors (1 = nominal flip) unless --b1-map-units percent is given", b1File, median);
             }
         }
         throw new InputException("no voxel could be fitted (" + res.processed() + " inside the mask: "
                 + res.statusCounts().entrySet().stream()
-                        .filter(e -> e.getValue() > 0 && e.getKey() != org.echotrellis.io.VoxelStatus.OUTSIDE_MASK)
+                        .filter(e -> e.getValue() > 0 && e.getKey() != VoxelStatus.OUTSIDE_MASK)
                         .map(e -> e.getValue() + " " + e.getKey().label()).collect(java.util.stream.Collectors.joining(", "))
                 + ")" + hint);
     }

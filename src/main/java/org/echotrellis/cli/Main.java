@@ -14,7 +14,8 @@ import picocli.CommandLine.Command;
 /** Entry point of the {@code echotrellis} command-line tool. */
 @Command(name = "echotrellis", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = "Extended-phase-graph tools for multi-echo spin-echo MR: simulate echo trains, "
-                + "trace coherence pathways, fit T2 and B1, compute T2 spectra and design refocusing schedules.",
+                + "trace coherence pathways, fit T2 and B1, compute T2 spectra, design refocusing schedules "
+                + "and follow fast-spin-echo trains into the image.",
         subcommands = {SimulateCommand.class, PathwaysCommand.class, FitCommand.class, SpectrumCommand.class,
             DesignCommand.class, ImageCommand.class, CohortCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Example:", "  echotrellis simulate sequences/knee-t2-16.yaml --b1 0.8 --plot knee.png",

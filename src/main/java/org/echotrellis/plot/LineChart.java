@@ -40,6 +40,8 @@ public final class LineChart {
     private boolean logX;
     private Double yMin;
     private Double yMax;
+    private Double xMin;
+    private Double xMax;
 
     private LineChart(String title, String xLabel, String yLabel) {
         this.title = title;
@@ -67,8 +69,19 @@ public final class LineChart {
         if (x.length != y.length) {
             throw new IllegalArgumentException("series " + name + ": x and y lengths differ");
         }
-        series.add(new Series(name, x.clone(), y.clone(), look, color));
+        series.add(new Series(name, plottable(x), plottable(y), look, color));
         return this;
+    }
+
+    /** Values beyond ±1e100 cannot be drawn (axis arithmetic overflows): they become gaps (NaN). */
+    private static double[] plottable(double[] v) {
+        double[] c = v.clone();
+        for (int i = 0; i < c.length; i++) {
+            if (!(Math.abs(c[i]) <= 1e100)) {
+                c[i] = Double.NaN;
+            }
+        }
+        return c;
     }
 
     /** Sets a subtitle line under the title. */
@@ -87,6 +100,13 @@ public final class LineChart {
     public LineChart yRange(double min, double max) {
         this.yMin = min;
         this.yMax = max;
+        return this;
+    }
+
+    /** Fixes the x range (linear x axis only). */
+    public LineChart xRange(double min, double max) {
+        this.xMin = min;
+        this.xMax = max;
         return this;
     }
 
@@ -126,6 +146,9 @@ public final class LineChart {
         } else {
             NumberAxis x = new NumberAxis(xLabel);
             x.setAutoRangeIncludesZero(true);
+            if (xMin != null) {
+                x.setRange(xMin, xMax);
+            }
             plot = new XYPlot(data, x, y, r);
         }
         plot.setOrientation(PlotOrientation.VERTICAL);

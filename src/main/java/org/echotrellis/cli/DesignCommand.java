@@ -53,6 +53,9 @@ public final class DesignCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @Mixin
+    ReportOption htmlReport;
+
     @Option(names = "--protocol", required = true, paramLabel = "FILE",
             description = "Protocol file with the echo train and design tissue (.yaml, .yml or .json).")
     Path protocol;
@@ -174,6 +177,7 @@ public final class DesignCommand implements Callable<Integer> {
         if (out != null) {
             DesignOutputs.checkWritable(out, force);
         }
+        htmlReport.begin(spec, force);
         PrintWriter err = spec.commandLine().getErr();
         DesignReport report;
         if (goal.target != null) {
@@ -198,6 +202,8 @@ public final class DesignCommand implements Callable<Integer> {
                 err.flush();
             }
         }
+        htmlReport.settings(CommandReports.acquisition(p));
+        htmlReport.write("design: " + p.name(), force, r -> CommandReports.design(r, report));
         return 0;
     }
 

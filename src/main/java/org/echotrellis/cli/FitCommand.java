@@ -53,6 +53,9 @@ public final class FitCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @Mixin
+    ReportOption report;
+
     @Parameters(index = "0", paramLabel = "DATA", description = "CSV decay table or NIfTI-1 series (.nii, .nii.gz).")
     Path data;
 
@@ -128,6 +131,7 @@ public final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        report.begin(spec, force);
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
@@ -143,7 +147,7 @@ public final class FitCommand implements Callable<Integer> {
             }
             double sigma = tableSigma();
             T2Fit.Factory f = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, out, force).run(data, format == Format.json, o);
+            new FitTableRun(f, p, out, force).run(data, format == Format.json, o, report);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -163,7 +167,7 @@ public final class FitCommand implements Callable<Integer> {
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
         new FitVolumeRun(settings, model, compareMono, noiseSigma, out, force, quiet)
-                .run(data, mask, b1Map, n, info, o, spec.commandLine().getErr());
+                .run(data, mask, b1Map, n, info, o, spec.commandLine().getErr(), report);
         return 0;
     }
 

@@ -34,7 +34,7 @@ final class FitTableRun {
         this.force = force;
     }
 
-    void run(Path csv, boolean json, PrintWriter o) {
+    void run(Path csv, boolean json, PrintWriter o, ReportOption report) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
@@ -72,6 +72,9 @@ final class FitTableRun {
         o.flush();
         ChartFiles.write(chart.build(), plotFile, 900, 560, force);
         ChartFiles.write(chart.build(), svgFile, 900, 560, force);
+        report.settings(Tables.protocolJson(protocol));
+        report.write("fit: " + csv.getFileName(), force, r -> r.section("Fits").records("One row per decay", rows)
+                .chart(chart.build(), 900, 560, "Decays of " + csv.getFileName() + " with the fitted curves"));
     }
 
     private static void checkTimes(DecayTable t, CpmgTrain train) {

@@ -23,6 +23,7 @@ import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumePipeline;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.MapPreview;
+import org.echotrellis.report.FitReport;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
 final class FitVolumeRun {
@@ -51,7 +52,7 @@ final class FitVolumeRun {
         {"amplitude", "amplitude"}, {"status", "status code"}};
 
     VolumeResult run(Path data, Path maskFile, Path b1File, int threads, Map<String, Object> info, PrintWriter o,
-            PrintWriter err) {
+            PrintWriter err, ReportOption report) {
         Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
         Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read);
         try (NiftiInput in = Nifti.open(data)) {
@@ -75,6 +76,8 @@ final class FitVolumeRun {
             res.writeMaps(outDir, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
+            report.settings(info);
+            report.write("fit: " + data.getFileName(), force, r -> FitReport.volume(r, res, in, b1, factory));
             double[] t2 = res.fittedValues("t2_ms");
             o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
                     res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);

@@ -28,7 +28,7 @@ import org.echotrellis.sequence.Protocol;
 final class SpectrumTables {
     private SpectrumTables() { }
 
-    static void run(Path data, Protocol p, BasisCache cache, SpectrumOptions o, String format, Path out,
+    static List<SpectrumFit> run(Path data, Protocol p, BasisCache cache, SpectrumOptions o, String format, Path out,
                     boolean force, Map<String, Object> settings, PrintWriter stdout) throws Exception {
         DecayTable t = DecayTableReader.read(data);
         checkEchoes(t, p);
@@ -58,6 +58,7 @@ final class SpectrumTables {
             default: stdout.print(text(fits, o));
         }
         stdout.flush();
+        return fits;
     }
 
     /** Refuses a table whose echo count or echo times differ from the protocol. */

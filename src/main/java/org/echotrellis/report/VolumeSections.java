@@ -1,0 +1,176 @@
+package org.echotrellis.report;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.echotrellis.io.NiftiHeader;
+import org.echotrellis.io.RunSummary;
+import org.echotrellis.io.VolumeResult;
+import org.echotrellis.io.VoxelStatus;
+import org.echotrellis.plot.HistogramChart;
+
+/**
+ * The report sections every volume command shares: headline numbers (voxels per status, run time,
+ * voxels/s, median and quartiles of chosen maps), montages of every slice of each map with a
+ * colour bar ({@link Montage}), and histograms of each map over the fitted voxels. Display ranges
+ * are the 2nd–98th percentiles over fitted voxels of all maps in a range group (from a stride
+ * sample of at most {@value #RANGE_SAMPLE} values per map), so comparable maps share colours.
+ */
+public final class VolumeSections {
+    /** Values per map used for display-range percentiles. */
+    static final int RANGE_SAMPLE = 200_000;
+    /** Histogram bins. */
+    static final int BINS = 60;
+
+    private VolumeSections() { }
+
+    /**
+     * Adds "Headline numbers": status counts, run time, throughput and per headline map the median
+     * and quartiles over fitted voxels (exact).
+     *
+     * @param r the report
+     * @param res the volume result
+     * @param headline maps to summarise
+     * @return the section (callers may add more facts)
+     */
+    public static Section headline(Report r, VolumeResult res, List<MapSpec> headline) {
+        Section s = r.section("Headline numbers");
+        Map<String, Object> f = new LinkedHashMap<>();
+        NiftiHeader h = res.mapHeader();
+        f.put("grid (x × y × z)", h.size(1) + " × " + h.size(2) + " × " + h.size(3));
+        f.put("voxels in the mask", res.processed());
+        f.put("run time (s)", res.seconds());
+        f.put("voxels per second", res.voxelsPerSecond());
+        byte[] status = res.status();
+        for (MapSpec m : headline) {
+            float[] v = fitted(res.map(m.name()), status);
+            Arrays.sort(v);
+            double[] d = new double[v.length];
+            for (int i = 0; i < v.length; i++) {
+                d[i] = v[i];
+            }
+            f.put("median " + m.unit(), RunSummary.percentile(d, 50));
+            f.put("interquartile range " + m.unit(), String.format(Locale.ROOT, "%s – %s",
+                    Html.num(RunSummary.percentile(d, 25)), Html.num(RunSummary.percentile(d, 75))));
+        }
+        s.facts(f);
+        List<List<?>> rows = new ArrayList<>();
+        long total = status.length;
+        res.statusCounts().forEach((st, n) -> rows.add(List.of(st.code(), st.label(), n,
+                total > 0 ? 100.0 * n / total : Double.NaN)));
+        s.table("Voxels per status", List.of("code", "status", "voxels", "% of grid"), rows);
+        return s;
+    }
+
+    /**
+     * Display ranges per range group.
+     *
+     * @param res the volume result
+     * @param maps the maps
+     * @return {lower, upper} per map name
+     */
+    public static Map<String, double[]> ranges(VolumeResult res, List<MapSpec> maps) {
+        byte[] status = res.status();
+        Map<String, List<float[]>> samples = new HashMap<>();
+        for (MapSpec m : maps) {
+            samples.computeIfAbsent(m.rangeKey(), k -> new ArrayList<>()).add(sample(res.map(m.name()), status));
+        }
+        Map<String, double[]> groupRange = new HashMap<>();
+        samples.forEach((k, list) -> {
+            int n = 0;
+            for (float[] a : list) {
+                n += a.length;
+            }
+            float[] all = new float[n];
+            int o = 0;
+            for (float[] a : list) {
+                System.arraycopy(a, 0, all, o, a.length);
+                o += a.length;
+            }
+            Arrays.sort(all);
+            groupRange.put(k, n == 0 ? new double[] {0, 1}
+                    : new double[] {all[(int) Math.round(0.02 * (n - 1))], all[(int) Math.round(0.98 * (n - 1))]});
+        });
+        Map<String, double[]> out = new LinkedHashMap<>();
+        for (MapSpec m : maps) {
+            double[] g = groupRange.get(m.rangeKey());
+            out.put(m.name(), new double[] {Double.isNaN(m.lower()) ? g[0] : m.lower(), Double.isNaN(m.upper()) ? g[1] : m.upper()});
+        }
+        return out;
+    }
+
+    /**
+     * Adds "Maps": one montage of every slice per map, with its colour bar.
+     *
+     * @param r the report
+     * @param res the volume result
+     * @param maps the maps, in order
+     * @param ranges display ranges from {@link #ranges}
+     */
+    public static void montages(Report r, VolumeResult res, List<MapSpec> maps, Map<String, double[]> ranges) {
+        Section s = r.section("Maps, every slice");
+        NiftiHeader h = res.mapHeader();
+        s.paragraph(String.format(Locale.ROOT, "Slices z = 0 … %d, y upwards; voxels outside the mask or without a "
+                + "fit are dark grey. Maps in the same range group share one colour range (2nd–98th percentile of "
+                + "the fitted voxels unless stated).", h.size(3) - 1));
+        Montage montage = Montage.forGrid(h.size(1), h.size(2), h.size(3), maps.size());
+        for (MapSpec m : maps) {
+            double[] range = ranges.get(m.name());
+            montage.add(s.subsection(m.title()), res.map(m.name()), m, range[0], range[1]);
+        }
+    }
+
+    /**
+     * Adds "Histograms": each map over the fitted voxels, on its display range.
+     *
+     * @param r the report
+     * @param res the volume result
+     * @param maps the maps
+     * @param ranges display ranges from {@link #ranges}
+     */
+    public static void histograms(Report r, VolumeResult res, List<MapSpec> maps, Map<String, double[]> ranges) {
+        Section s = r.section("Histograms inside the mask");
+        s.paragraph("Fitted voxels only; values outside the shown range are counted in the first or last bin.");
+        byte[] status = res.status();
+        for (MapSpec m : maps) {
+            float[] v = fitted(res.map(m.name()), status);
+            double[] range = ranges.get(m.name());
+            double lo = range[0];
+            double hi = range[1] > lo ? range[1] : lo + 1;
+            long[] c = HistogramChart.counts(v, lo, hi, BINS);
+            long finite = v.length;
+            String sub = String.format(Locale.ROOT, "%d voxels, range %s – %s", finite, Html.num(lo), Html.num(hi));
+            s.chart(HistogramChart.chart(m.title(), sub, m.unit(), lo, hi, c), 640, 300,
+                    "Histogram of " + m.title() + " over " + finite + " fitted voxels");
+        }
+    }
+
+    /** Finite values at fitted voxels. */
+    static float[] fitted(float[] map, byte[] status) {
+        float[] v = new float[map.length];
+        int n = 0;
+        for (int i = 0; i < map.length; i++) {
+            if (VoxelStatus.ofCode(status[i]).fitted() && Float.isFinite(map[i])) {
+                v[n++] = map[i];
+            }
+        }
+        return Arrays.copyOf(v, n);
+    }
+
+    private static float[] sample(float[] map, byte[] status) {
+        float[] v = fitted(map, status);
+        if (v.length <= RANGE_SAMPLE) {
+            return v;
+        }
+        float[] s = new float[RANGE_SAMPLE];
+        double step = (double) v.length / RANGE_SAMPLE;
+        for (int i = 0; i < RANGE_SAMPLE; i++) {
+            s[i] = v[(int) (i * step)];
+        }
+        return s;
+    }
+}

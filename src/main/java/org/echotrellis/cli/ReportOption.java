@@ -1,5 +1,6 @@
 package org.echotrellis.cli;
 
+import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -39,6 +40,7 @@ public final class ReportOption {
     Path report;
 
     private RunInfo info;
+    private CommandSpec spec;
 
     /** @return whether --report was given */
     public boolean enabled() {
@@ -56,6 +58,7 @@ public final class ReportOption {
             return;
         }
         Report.checkTarget(report, force);
+        this.spec = spec;
         ParseResult parsed = spec.commandLine().getParseResult();
         StringBuilder cl = new StringBuilder("echotrellis");
         for (String a : spec.root().commandLine().getParseResult().originalArgs()) {
@@ -97,9 +100,13 @@ public final class ReportOption {
         if (info == null) {
             throw new IllegalStateException("ReportOption.begin was not called");
         }
+        long t0 = System.nanoTime();
         Report r = Report.create(title).run(info);
         content.accept(r);
-        r.write(report, force);
+        long bytes = r.write(report, force);
+        PrintWriter err = spec.commandLine().getErr();
+        err.printf(Locale.ROOT, "report: wrote %s (%.1f MB in %.2f s)%n", report, bytes / 1e6, (System.nanoTime() - t0) / 1e9);
+        err.flush();
     }
 
     private static java.util.Collection<ArgSpec> inputs(ParseResult parsed) {

@@ -63,6 +63,82 @@ public final class SliceImages {
     }
 
     /**
+     * Renders slice z as an indexed-colour PNG (colour type 3, 8 bits: {@value #LEVELS} − 1 palette
+     * levels and the NaN colour), one pixel per {@code step} voxels in x and y (nearest neighbour:
+     * the voxel under the pixel centre), compressed with zlib at its fastest level. PNG layout per
+     * the W3C PNG specification (2003): signature, IHDR, PLTE, IDAT, IEND, each chunk with CRC-32.
+     *
+     * @param map the 3-D map, x fastest (not modified)
+     * @param nx x size
+     * @param ny y size
+     * @param z slice index
+     * @param step downsampling step (≥ 1, may be fractional)
+     * @return the PNG bytes of a ceil(nx/step) × ceil(ny/step) image
+     */
+    public byte[] slicePng(float[] map, int nx, int ny, int z, double step) {
+        int w = (int) Math.ceil(nx / step);
+        int h = (int) Math.ceil(ny / step);
+        int levels = LEVELS - 1;
+        byte[] raw = new byte[(w + 1) * h];
+        double scale = (levels - 1) / (upper - lower);
+        int base = z * nx * ny;
+        int[] column = new int[w];
+        for (int col = 0; col < w; col++) {
+            column[col] = Math.min(nx - 1, (int) ((col + 0.5) * step));
+        }
+        for (int row = 0; row < h; row++) {
+            int j = Math.min(ny - 1, (int) ((row + 0.5) * step));
+            int line = (h - 1 - row) * (w + 1);
+            raw[line] = 0;                                   // filter type None
+            int src = base + nx * j;
+            for (int col = 0; col < w; col++) {
+                float v = map[src + column[col]];
+                int k = Float.isNaN(v) ? levels : (int) Math.round((v - lower) * scale);
+                raw[line + 1 + col] = (byte) (k < 0 ? 0 : Math.min(k, levels));
+            }
+        }
+        byte[] plte = new byte[3 * (levels + 1)];
+        for (int i = 0; i < levels; i++) {
+            int c = table[(int) Math.round(i * (LEVELS - 1.0) / (levels - 1))];
+            plte[3 * i] = (byte) (c >> 16);
+            plte[3 * i + 1] = (byte) (c >> 8);
+            plte[3 * i + 2] = (byte) c;
+        }
+        plte[3 * levels] = (byte) (background >> 16);
+        plte[3 * levels + 1] = (byte) (background >> 8);
+        plte[3 * levels + 2] = (byte) background;
+        java.util.zip.Deflater deflater = new java.util.zip.Deflater(java.util.zip.Deflater.BEST_SPEED);
+        deflater.setInput(raw);
+        deflater.finish();
+        ByteArrayOutputStream idat = new ByteArrayOutputStream(raw.length / 2 + 64);
+        byte[] buf = new byte[1 << 14];
+        while (!deflater.finished()) {
+            idat.write(buf, 0, deflater.deflate(buf));
+        }
+        deflater.end();
+        ByteArrayOutputStream out = new ByteArrayOutputStream(idat.size() + plte.length + 64);
+        out.writeBytes(new byte[] {(byte) 0x89, 'P', 'N', 'G', '\r', '\n', 0x1a, '\n'});
+        byte[] ihdr = java.nio.ByteBuffer.allocate(13).putInt(w).putInt(h).put((byte) 8).put((byte) 3)
+                .put((byte) 0).put((byte) 0).put((byte) 0).array();
+        chunk(out, "IHDR", ihdr);
+        chunk(out, "PLTE", plte);
+        chunk(out, "IDAT", idat.toByteArray());
+        chunk(out, "IEND", new byte[0]);
+        return out.toByteArray();
+    }
+
+    private static void chunk(ByteArrayOutputStream out, String type, byte[] data) {
+        byte[] t = type.getBytes(java.nio.charset.StandardCharsets.US_ASCII);
+        java.util.zip.CRC32 crc = new java.util.zip.CRC32();
+        crc.update(t);
+        crc.update(data);
+        out.writeBytes(java.nio.ByteBuffer.allocate(4).putInt(data.length).array());
+        out.writeBytes(t);
+        out.writeBytes(data);
+        out.writeBytes(java.nio.ByteBuffer.allocate(4).putInt((int) crc.getValue()).array());
+    }
+
+    /**
      * Renders slice z, one pixel per {@code step} voxels in x and y (nearest neighbour: the voxel
      * under the pixel centre).
      *

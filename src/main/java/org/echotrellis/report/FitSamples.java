@@ -11,6 +11,7 @@ import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.LineChart;
+import org.jfree.chart.JFreeChart;
 
 /**
  * The "Sample decays" section of a T2-fit report: the measured decays and fitted curves of three
@@ -56,6 +57,8 @@ public final class FitSamples {
         }
         T2Fit fit = factory.newKernel();
         List<List<?>> rows = new ArrayList<>();
+        List<JFreeChart> charts = new ArrayList<>();
+        List<String> alts = new ArrayList<>();
         int loaded = -1;
         for (VoxelPicks.Pick p : picks) {
             int z = p.index() / (nx * ny);
@@ -80,10 +83,12 @@ public final class FitSamples {
             if (finite(curves[1])) {
                 c.add("mono-exponential fit", times, curves[1], LineChart.Look.DASHED);
             }
-            s.chart(c.build(), 640, 340, "Decay of " + where + " (" + p.role() + ") with the fitted curve");
+            charts.add(c.build());
+            alts.add("Decay of " + where + " (" + p.role() + ") with the fitted curve");
             rows.add(List.of(p.role(), inSlice % nx, inSlice / nx, z, est.t2Ms(), est.b1Scale(), est.amplitude(),
                     est.residualRms(), est.status().label()));
         }
+        s.charts(charts, alts, 640, 340);
         s.table("Voxels shown", List.of("why", "x", "y", "z", "T2 (ms)", "B1", "amplitude", "residual rms", "status"), rows);
     }
 

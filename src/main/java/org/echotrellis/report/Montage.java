@@ -63,7 +63,7 @@ final class Montage {
         SliceImages images = new SliceImages(lower, upper, NAN_COLOUR);
         String[] uris = new String[nz];
         ForkJoinPool.commonPool().submit(() -> IntStream.range(0, nz).parallel().forEach(z ->
-                uris[z] = Section.dataUri(SliceImages.png(images.slice(map, nx, ny, z, step))))).join();
+                uris[z] = Section.dataUri(images.slicePng(map, nx, ny, z, step)))).join();
         int w = (int) Math.ceil(nx / step);
         int h = (int) Math.ceil(ny / step);
         double zoom = Math.max(1, Math.min(4, 128.0 / Math.max(w, h)));
@@ -89,23 +89,24 @@ final class Montage {
     static String colourBar(String id, SliceImages images, String unit) {
         StringBuilder sb = new StringBuilder();
         String alt = "Colour bar: " + unit + " from " + Html.num(images.lower()) + " to " + Html.num(images.upper());
-        sb.append("<svg class=\"bar\" width=\"420\" height=\"46\" viewBox=\"0 0 420 46\" role=\"img\" aria-label=\"")
+        sb.append("<svg class=\"bar\" width=\"380\" height=\"58\" viewBox=\"0 0 380 58\" role=\"img\" aria-label=\"")
           .append(Html.text(alt)).append("\"><defs><linearGradient id=\"").append(id).append("\">");
         for (int i = 0; i <= 16; i++) {
             Color c = images.colourAt(i / 16.0);
             sb.append(String.format(Locale.ROOT, "<stop offset=\"%.4f\" stop-color=\"#%02x%02x%02x\"/>", i / 16.0,
                     c.getRed(), c.getGreen(), c.getBlue()));
         }
-        sb.append("</linearGradient></defs><rect x=\"10\" y=\"2\" width=\"300\" height=\"14\" fill=\"url(#").append(id)
+        sb.append("</linearGradient></defs><text x=\"40\" y=\"12\" font-size=\"12\" fill=\"#222\">").append(Html.text(unit))
+          .append("</text><rect x=\"40\" y=\"18\" width=\"300\" height=\"14\" fill=\"url(#").append(id)
           .append(")\" stroke=\"#555\" stroke-width=\"0.5\"/>");
         for (int i = 0; i <= 4; i++) {
-            double x = 10 + 300 * i / 4.0;
+            double x = 40 + 300 * i / 4.0;
             double v = images.lower() + (images.upper() - images.lower()) * i / 4.0;
-            sb.append(String.format(Locale.ROOT, "<line x1=\"%.1f\" y1=\"16\" x2=\"%.1f\" y2=\"21\" stroke=\"#222\"/>", x, x))
-              .append(String.format(Locale.ROOT, "<text x=\"%.1f\" y=\"33\" font-size=\"11\" text-anchor=\"middle\" "
+            sb.append(String.format(Locale.ROOT, "<line x1=\"%.1f\" y1=\"32\" x2=\"%.1f\" y2=\"37\" stroke=\"#222\"/>", x, x))
+              .append(String.format(Locale.ROOT, "<text x=\"%.1f\" y=\"50\" font-size=\"11\" text-anchor=\"middle\" "
                       + "fill=\"#222\">", x)).append(Html.text(Html.num(v))).append("</text>");
         }
-        sb.append("<text x=\"318\" y=\"14\" font-size=\"12\" fill=\"#222\">").append(Html.text(unit)).append("</text></svg>\n");
+        sb.append("</svg>\n");
         return sb.toString();
     }
 }

@@ -1,5 +1,6 @@
 package org.echotrellis.report;
 
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
@@ -111,10 +112,13 @@ public final class Report {
      *
      * @param out target path (.html or .htm)
      * @param force replace an existing file
+     * @return the size of the page in bytes
      */
-    public void write(Path out, boolean force) {
+    public long write(Path out, boolean force) {
         checkPath(out);
-        AtomicFiles.writeString(out, html(), force);
+        byte[] page = html().getBytes(StandardCharsets.UTF_8);
+        AtomicFiles.write(out, force, stream -> stream.write(page));
+        return page.length;
     }
 
     /**

@@ -160,8 +160,29 @@ public final class Section {
      * @return this
      */
     public Section chart(JFreeChart chart, int widthPx, int heightPx, String alt) {
-        body.append("<figure class=\"chart\">").append(inlineSvg(ChartFiles.svg(chart, widthPx, heightPx), widthPx,
-                heightPx, alt)).append("<figcaption>").append(Html.text(alt)).append("</figcaption></figure>\n");
+        return svgFigure(ChartFiles.svg(chart, widthPx, heightPx), widthPx, heightPx, alt);
+    }
+
+    /**
+     * Several charts of the same size, drawn in parallel and added in order.
+     *
+     * @param charts the charts
+     * @param alts one description per chart (escaped)
+     * @param widthPx drawing width
+     * @param heightPx drawing height
+     * @return this
+     */
+    public Section charts(List<JFreeChart> charts, List<String> alts, int widthPx, int heightPx) {
+        List<String> svgs = charts.parallelStream().map(c -> ChartFiles.svg(c, widthPx, heightPx)).toList();
+        for (int i = 0; i < svgs.size(); i++) {
+            svgFigure(svgs.get(i), widthPx, heightPx, alts.get(i));
+        }
+        return this;
+    }
+
+    private Section svgFigure(String svg, int widthPx, int heightPx, String alt) {
+        body.append("<figure class=\"chart\">").append(inlineSvg(svg, widthPx, heightPx, alt)).append("<figcaption>")
+            .append(Html.text(alt)).append("</figcaption></figure>\n");
         return this;
     }
 

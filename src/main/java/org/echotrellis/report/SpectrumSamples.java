@@ -5,7 +5,6 @@ import java.util.List;
 import java.util.Locale;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.VolumeResult;
-import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.SpectrumPlot;
 
 /**
@@ -37,7 +36,7 @@ public final class SpectrumSamples {
             maps[j] = res.map(binNames.get(j));
         }
         for (int i = 0; i < status.length; i++) {
-            if (VoxelStatus.ofCode(status[i]).fitted() && Float.isFinite(maps[0][i])) {
+            if (VolumeSections.fitted(status[i]) && Float.isFinite(maps[0][i])) {
                 n++;
                 for (int j = 0; j < bins; j++) {
                     mean[j] += maps[j][i];

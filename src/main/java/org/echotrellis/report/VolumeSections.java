@@ -12,6 +12,7 @@ import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.HistogramChart;
+import org.jfree.chart.JFreeChart;
 
 /**
  * The report sections every volume command shares: headline numbers (voxels per status, run time,
@@ -25,6 +26,14 @@ public final class VolumeSections {
     static final int RANGE_SAMPLE = 200_000;
     /** Histogram bins. */
     static final int BINS = 60;
+    /** Whether each status code carries fitted values ({@link VoxelStatus#fitted()}), by code. */
+    private static final boolean[] FITTED = new boolean[256];
+
+    static {
+        for (VoxelStatus s : VoxelStatus.values()) {
+            FITTED[s.code()] = s.fitted();
+        }
+    }
 
     private VolumeSections() { }
 
@@ -48,7 +57,7 @@ public final class VolumeSections {
         byte[] status = res.status();
         for (MapSpec m : headline) {
             float[] v = fitted(res.map(m.name()), status);
-            Arrays.sort(v);
+            Arrays.parallelSort(v);
             double[] d = new double[v.length];
             for (int i = 0; i < v.length; i++) {
                 d[i] = v[i];
@@ -60,8 +69,14 @@ public final class VolumeSections {
         s.facts(f);
         List<List<?>> rows = new ArrayList<>();
         long total = status.length;
-        res.statusCounts().forEach((st, n) -> rows.add(List.of(st.code(), st.label(), n,
-                total > 0 ? 100.0 * n / total : Double.NaN)));
+        long[] counts = new long[256];
+        for (byte b : status) {
+            counts[b & 0xff]++;
+        }
+        for (VoxelStatus st : VoxelStatus.values()) {
+            long n = counts[st.code()];
+            rows.add(List.of(st.code(), st.label(), n, total > 0 ? 100.0 * n / total : Double.NaN));
+        }
         s.table("Voxels per status", List.of("code", "status", "voxels", "% of grid"), rows);
         return s;
     }
@@ -134,19 +149,38 @@ public final class VolumeSections {
      */
     public static void histograms(Report r, VolumeResult res, List<MapSpec> maps, Map<String, double[]> ranges) {
         Section s = r.section("Histograms inside the mask");
-        s.paragraph("Fitted voxels only; values outside the shown range are counted in the first or last bin.");
+        s.paragraph("Fitted voxels only, from the 0.1st to the 99.9th percentile (at least the colour range of the "
+                + "map); values beyond are counted in the first or last bin.");
         byte[] status = res.status();
+        List<JFreeChart> charts = new ArrayList<>();
+        List<String> alts = new ArrayList<>();
         for (MapSpec m : maps) {
             float[] v = fitted(res.map(m.name()), status);
             double[] range = ranges.get(m.name());
+            float[] sorted = sample(v);
+            Arrays.sort(sorted);
             double lo = range[0];
-            double hi = range[1] > lo ? range[1] : lo + 1;
+            double hi = range[1];
+            if (sorted.length > 0) {
+                lo = Math.min(lo, sorted[(int) Math.round(0.001 * (sorted.length - 1))]);
+                hi = Math.max(hi, sorted[(int) Math.round(0.999 * (sorted.length - 1))]);
+            }
+            hi = hi > lo ? hi : lo + 1;
             long[] c = HistogramChart.counts(v, lo, hi, BINS);
             long finite = v.length;
             String sub = String.format(Locale.ROOT, "%d voxels, range %s – %s", finite, Html.num(lo), Html.num(hi));
-            s.chart(HistogramChart.chart(m.title(), sub, m.unit(), lo, hi, c), 640, 300,
-                    "Histogram of " + m.title() + " over " + finite + " fitted voxels");
+            charts.add(HistogramChart.chart(m.title(), sub, m.unit(), lo, hi, c));
+            alts.add("Histogram of " + m.title() + " over " + finite + " fitted voxels");
         }
+        s.charts(charts, alts, 640, 300);
+    }
+
+    /**
+     * @param code a status code
+     * @return whether the voxel carries fitted values
+     */
+    static boolean fitted(byte code) {
+        return FITTED[code & 0xff];
     }
 
     /** Finite values at fitted voxels. */
@@ -154,7 +188,7 @@ public final class VolumeSections {
         float[] v = new float[map.length];
         int n = 0;
         for (int i = 0; i < map.length; i++) {
-            if (VoxelStatus.ofCode(status[i]).fitted() && Float.isFinite(map[i])) {
+            if (FITTED[status[i] & 0xff] && Float.isFinite(map[i])) {
                 v[n++] = map[i];
             }
         }
@@ -162,9 +196,13 @@ public final class VolumeSections {
     }
 
     private static float[] sample(float[] map, byte[] status) {
-        float[] v = fitted(map, status);
+        return sample(fitted(map, status));
+    }
+
+    /** @return at most {@link #RANGE_SAMPLE} values taken with an even stride (a copy when shorter) */
+    private static float[] sample(float[] v) {
         if (v.length <= RANGE_SAMPLE) {
-            return v;
+            return v.clone();
         }
         float[] s = new float[RANGE_SAMPLE];
         double step = (double) v.length / RANGE_SAMPLE;

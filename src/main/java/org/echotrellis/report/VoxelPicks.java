@@ -68,7 +68,7 @@ final class VoxelPicks {
         Arrays.fill(val, Float.NEGATIVE_INFINITY);
         for (int i = 0; i < score.length; i++) {
             float s = score[i];
-            if (Float.isFinite(s) && s > val[count - 1] && VoxelStatus.ofCode(status[i]).fitted()) {
+            if (Float.isFinite(s) && s > val[count - 1] && VolumeSections.fitted(status[i])) {
                 int k = count - 1;
                 while (k > 0 && val[k - 1] < s) {
                     val[k] = val[k - 1];

@@ -15,8 +15,8 @@ public final class Section {
     private final Report report;
     private final String heading;
     private final int level;
-    private final StringBuilder body = new StringBuilder();
-    private final List<Section> children = new ArrayList<>();
+    private final List<Object> parts = new ArrayList<>();
+    private StringBuilder body = new StringBuilder();
 
     Section(Report report, String heading, int level) {
         this.report = report;
@@ -32,13 +32,10 @@ public final class Section {
      */
     public Section subsection(String title) {
         Section s = new Section(report, title, Math.min(4, level + 1));
-        flushInto(s);
+        parts.add(body);
+        parts.add(s);
+        body = new StringBuilder();
         return s;
-    }
-
-    private void flushInto(Section s) {
-        children.add(s);
-        body.append("\u0000").append(children.size() - 1).append("\u0000");
     }
 
     /**
@@ -220,7 +217,8 @@ public final class Section {
     private String inlineSvg(String svg, int w, int h, String alt) {
         String id = report.nextId() + "-";
         int start = svg.indexOf("<svg");
-        String s = svg.substring(start);
+        // control characters (other than tab and line ends) are not allowed in XML; chart text may hold them
+        String s = svg.substring(start).replaceAll("[\\x00-\\x08\\x0B\\x0C\\x0E-\\x1F\\x7F]", "\uFFFD");
         s = s.replace(" id=\"", " id=\"" + id).replace("url(#", "url(#" + id).replace("href=\"#", "href=\"#" + id);
         int close = s.indexOf('>');
         String open = s.substring(0, close).replaceAll(" width=\"[^\"]*\"", "").replaceAll(" height=\"[^\"]*\"", "");
@@ -241,19 +239,13 @@ public final class Section {
 
     void render(StringBuilder out) {
         out.append("<section>\n<h").append(level).append('>').append(Html.text(heading)).append("</h").append(level).append(">\n");
-        String b = body.toString();
-        int i = 0;
-        while (true) {
-            int a = b.indexOf('\u0000', i);
-            if (a < 0) {
-                out.append(b, i, b.length());
-                break;
+        for (Object p : parts) {
+            if (p instanceof Section s) {
+                s.render(out);
+            } else {
+                out.append((CharSequence) p);
             }
-            int e = b.indexOf('\u0000', a + 1);
-            out.append(b, i, a);
-            children.get(Integer.parseInt(b.substring(a + 1, e))).render(out);
-            i = e + 1;
         }
-        out.append("</section>\n");
+        out.append(body).append("</section>\n");
     }
 }

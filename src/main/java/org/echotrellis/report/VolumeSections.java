@@ -140,6 +140,24 @@ public final class VolumeSections {
     }
 
     /**
+     * Adds one montage with its colour bar to a section, for maps that are not in a {@link VolumeResult}.
+     *
+     * @param s the section
+     * @param map the 3-D map, x fastest (not modified); NaN is drawn dark grey
+     * @param nx x size
+     * @param ny y size
+     * @param nz slices
+     * @param spec title and unit
+     * @param lower first-colour value
+     * @param upper last-colour value
+     * @param mapsInReport montages planned in the whole report (for the pixel budget)
+     */
+    public static void montage(Section s, float[] map, int nx, int ny, int nz, MapSpec spec, double lower, double upper,
+            int mapsInReport) {
+        Montage.forGrid(nx, ny, nz, mapsInReport).add(s, map, spec, lower, upper);
+    }
+
+    /**
      * Adds "Histograms": each map over the fitted voxels, on its display range.
      *
      * @param r the report

@@ -38,22 +38,18 @@ final class HeadlessChromium {
             "/usr/bin/google-chrome");
 
     private final Path executable;
-    private final Path profile;
-
-    private HeadlessChromium(Path executable, Path profile) {
+    private HeadlessChromium(Path executable) {
         this.executable = executable;
-        this.profile = profile;
     }
 
     /**
-     * @param work a temporary directory for the browser profile
      * @return the browser; skips the test when it is missing outside CI, fails in CI
      */
-    static HeadlessChromium require(Path work) throws IOException {
+    static HeadlessChromium require() throws IOException {
         for (String c : CANDIDATES) {
             Path p = Path.of(c);
             if (Files.isExecutable(p)) {
-                return new HeadlessChromium(p, Files.createDirectories(work.resolve("chromium-profile")));
+                return new HeadlessChromium(p);
             }
         }
         String ci = System.getenv("CI");
@@ -65,7 +61,7 @@ final class HeadlessChromium {
         return null;
     }
 
-    private List<String> base() {
+    private List<String> base(Path profile) {
         return new ArrayList<>(List.of(executable.toString(), "--headless", "--no-sandbox", "--disable-gpu",
                 "--no-first-run", "--no-default-browser-check", "--disable-extensions", "--hide-scrollbars",
                 "--disable-background-networking", "--disable-component-update", "--disable-sync",
@@ -81,7 +77,9 @@ final class HeadlessChromium {
      * @return a session; close it to end the browser
      */
     Session start() throws Exception {
-        List<String> cmd = base();
+        // a profile of its own outside the test's directory (the browser leaves sockets there)
+        Path profile = Files.createTempDirectory("echotrellis-chromium-");
+        List<String> cmd = base(profile);
         cmd.addAll(List.of("--remote-debugging-port=0", "--remote-allow-origins=*", "about:blank"));
         Process proc = new ProcessBuilder(cmd).redirectErrorStream(true).start();
         try {
@@ -104,13 +102,15 @@ final class HeadlessChromium {
             LinkedBlockingQueue<JsonNode> events = new LinkedBlockingQueue<>();
             WebSocket socket = http.newWebSocketBuilder().buildAsync(URI.create(ws), new Collector(events))
                     .get(30, TimeUnit.SECONDS);
-            Session s = new Session(proc, socket, events);
+            Session s = new Session(proc, socket, events, profile);
             for (String m : List.of("Runtime.enable", "Log.enable", "Network.enable", "Page.enable")) {
                 s.call(m, null);
             }
             return s;
         } catch (Exception | AssertionError e) {
             proc.destroyForcibly();
+            proc.waitFor(10, TimeUnit.SECONDS);
+            deleteTree(profile);
             throw e;
         }
     }
@@ -125,7 +125,10 @@ final class HeadlessChromium {
         private boolean loaded;
         private int id;
 
-        private Session(Process proc, WebSocket socket, LinkedBlockingQueue<JsonNode> events) {
+        private final Path profile;
+
+        private Session(Process proc, WebSocket socket, LinkedBlockingQueue<JsonNode> events, Path profile) {
+            this.profile = profile;
             this.proc = proc;
             this.socket = socket;
             this.events = events;
@@ -201,7 +204,17 @@ final class HeadlessChromium {
             proc.destroy();
             if (!proc.waitFor(10, TimeUnit.SECONDS)) {
                 proc.destroyForcibly();
+                proc.waitFor(10, TimeUnit.SECONDS);
             }
+            deleteTree(profile);
+        }
+    }
+
+    private static void deleteTree(Path root) {
+        try (java.util.stream.Stream<Path> walk = Files.walk(root)) {
+            walk.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+        } catch (IOException | java.io.UncheckedIOException ignored) {
+            // best effort: a temporary browser profile
         }
     }
 

@@ -74,7 +74,7 @@ class ReportBrowserTest {
 
     @Test
     void fitVolumeReportRendersPrintsAndMakesNoRequests() throws Exception {
-        HeadlessChromium browser = HeadlessChromium.require(dir);
+        HeadlessChromium browser = HeadlessChromium.require();
         Path[] in = phantom();
         Path out = dir.resolve("maps");
         Path html = dir.resolve("fit report.html");
@@ -146,7 +146,7 @@ class ReportBrowserTest {
 
     @Test
     void designSimulateAndPathwaysReportsLoadCleanly() throws Exception {
-        HeadlessChromium browser = HeadlessChromium.require(dir);
+        HeadlessChromium browser = HeadlessChromium.require();
         Path design = dir.resolve("design.html");
         CliRun d = CliRun.of("design", "--protocol", "sequences/fse-variable-1p5t.yaml", "--target", "constant:0.4",
                 "--tr-ms", "3000", "--b1rms-limit-ut", "3", "--quiet", "--report", design.toString());

@@ -145,8 +145,21 @@ class ReportBrowserTest {
     }
 
     @Test
-    void designSimulateAndPathwaysReportsLoadCleanly() throws Exception {
+    void otherCommandReportsLoadCleanly() throws Exception {
         HeadlessChromium browser = HeadlessChromium.require();
+        Path[] in = phantom();
+        double[] oneSlice = new double[NX * NY * NZ];
+        NiftiImage mask = Nifti.read(in[1]);
+        for (int v = 2 * NX * NY; v < 3 * NX * NY; v++) {
+            oneSlice[v] = mask.get(v);
+        }
+        Path sliceMask = dir.resolve("slice-mask.nii");
+        Nifti.write(sliceMask, NiftiHeader.create(NiftiDatatype.UINT8, NX, NY, NZ), oneSlice, false);
+        Path spectrum = dir.resolve("spectrum.html");
+        CliRun sp = CliRun.of("spectrum", in[0].toString(), "--protocol", PROTOCOL, "--mask", sliceMask.toString(),
+                "--refocus-deg", "180", "--t2-bins", "20", "--out", dir.resolve("spec").toString(), "--quiet",
+                "--report", spectrum.toString());
+        assertEquals(0, sp.code(), sp.err());
         Path design = dir.resolve("design.html");
         CliRun d = CliRun.of("design", "--protocol", "sequences/fse-variable-1p5t.yaml", "--target", "constant:0.4",
                 "--tr-ms", "3000", "--b1rms-limit-ut", "3", "--quiet", "--report", design.toString());
@@ -158,6 +171,8 @@ class ReportBrowserTest {
         CliRun p = CliRun.of("pathways", "sequences/knee-t2-16.yaml", "--report", path.toString());
         assertEquals(0, p.code(), p.err());
         String[][] expect = {
+            {spectrum.toString(), "Spectra", "Mean spectrum", "Maps, every slice", "Histograms inside the mask",
+                "geometric-mean T2"},
             {design.toString(), "Schedule", "Echoes", "RF exposure", "the scanner's own SAR monitor"},
             {sim.toString(), "Echo train", "knee-t2-16"},
             {path.toString(), "Echo classes", "Phase graph"},

@@ -5,11 +5,13 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.echotrellis.design.DesignReport;
+import org.echotrellis.image.ImageReport;
 import org.echotrellis.design.ExposureSummary;
 import org.echotrellis.design.IecLimits;
 import org.echotrellis.epg.CpmgTrain;
 import org.echotrellis.fit.spectrum.FractionWindow;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.volume.SpectrumNames;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.report.MapSpec;
 import org.echotrellis.report.SpectrumSamples;
@@ -120,5 +122,14 @@ final class CommandReports {
             windows.add(new double[] {w.loMs(), w.hiMs()});
         }
         SpectrumSamples.add(r, res, t2, bins, "gm_t2_ms", "chi2", windows);
+    }
+
+    static void image(Report r, ImageReport report, String name) {
+        r.section("Image figures")
+                .chart(ImageOutputs.weightsChart(report, name + ": k-space weights"), 900, 540,
+                        "k-space weight of each echo per tissue")
+                .chart(ImageOutputs.psfChart(report, name + ": point-spread function"), 900, 540,
+                        "Point-spread function per tissue")
+                .preformatted("Table (as printed)", ImageOutputs.table(report, name));
     }
 }

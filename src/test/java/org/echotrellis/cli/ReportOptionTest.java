@@ -49,4 +49,13 @@ class ReportOptionTest {
         assertFalse(page.contains("<td>--report</td>"), "the report is not an input");
         assertTrue(page.contains("name: knee-t2-16"), "protocol text shown");
     }
+
+    @Test
+    void imageReportHoldsItsFigures() throws Exception {
+        Path html = dir.resolve("image.html");
+        CliRun r = CliRun.of("image", "sequences/brain-fse-t2-3t.yaml", "--phase-lines", "64", "--report", html.toString());
+        assertEquals(0, r.code(), r.err());
+        String page = Files.readString(html);
+        assertTrue(page.contains("Image figures") && page.contains("Point-spread function per tissue"), "sections");
+    }
 }

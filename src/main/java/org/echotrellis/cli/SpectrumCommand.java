@@ -126,6 +126,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         boolean image = name.endsWith(".nii") || name.endsWith(".nii.gz");
         Checks.require(image || name.endsWith(".csv"),
                 "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
+        refuseIgnored(image, options);
         VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
         BasisCache cache = analysis.basisCache().orElseThrow();
         Map<String, Object> settings = settings(p, analysis);
@@ -134,18 +135,33 @@ public final class SpectrumCommand implements Callable<Integer> {
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
             var res = SpectrumVolumes.run(data, mask, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
-                    new StderrProgressBar(spec.commandLine().getErr(), quiet), spec.commandLine().getOut()).result();
+                    new StderrProgressBar(spec.commandLine().getErr(), quiet), spec.commandLine().getOut(),
+                    java.util.Arrays.asList(data, mask, protocol)).result();
             report.settings(settings);
             report.write("spectrum: " + data.getFileName(), force, r -> CommandReports.spectrumVolume(r, res, options));
         } else {
             Checks.require(mask == null, "--mask applies to image input only; DATA " + data + " is a table");
-            var fits = SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings, spec.commandLine().getOut());
+            var fits = SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings,
+                    spec.commandLine().getOut(), List.of(data, protocol));
             report.settings(settings);
             report.write("spectrum: " + data.getFileName(), force, r -> r.section("Spectra")
                     .chart(SpectrumTables.plot(fits, options, data.getFileName().toString()), 900, 560, "T2 spectra of the decays")
                     .preformatted("Table (as printed)", SpectrumTables.text(fits, options)));
         }
         return 0;
+    }
+
+    /** Options the chosen input or method would ignore are refused rather than silently dropped. */
+    private void refuseIgnored(boolean image, SpectrumOptions options) {
+        picocli.CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
+        if (!image && threads != null) {
+            throw new InputException("--threads " + threads + " applies to image input; the decay table " + data
+                    + " is fitted on one thread");
+        }
+        if (parsed.hasMatchedOption("--misfit-increase") && options.regularisation() == Regularisation.NONE) {
+            throw new InputException("--misfit-increase sets the misfit target of regularisation; it has no effect with "
+                    + "--regularisation none");
+        }
     }
 
     /** @return the fit options from the command line (validated; errors name the option) */

@@ -11,10 +11,9 @@ import java.util.concurrent.Callable;
 
 import org.echotrellis.InputException;
 import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.fit.Acquisitions;
 import org.echotrellis.fit.FitModel;
 import org.echotrellis.fit.FitSettings;
-import org.echotrellis.fit.SliceProfile;
-import org.echotrellis.fit.SliceProfiles;
 import org.echotrellis.fit.T2Fit;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
@@ -36,16 +35,20 @@ import picocli.CommandLine.Spec;
             "      --format json",
             "  echotrellis fit series.nii.gz --protocol sequences/knee-t2-16.yaml \\",
             "      --mask mask.nii.gz --out t2maps --compare-mono",
-            "  echotrellis fit series.nii.gz --protocol p.yaml --mask m.nii \\",
-            "      --slice-profile sinc:4 --noise-sigma auto",
+            "  echotrellis fit series.nii.gz --protocol sequences/brain-mwi-32.yaml \\",
+            "      --mask m.nii --noise-sigma auto",
+            "",
+            "The acquisition (pulse shapes, slice selection, repetition time, crushers,",
+            "diffusion) is read from the protocol; T1 is the protocol tissue's unless",
+            "--t1-ms is given.",
             "",
             "Volumes: t2_ms, t2_se_ms, b1_scale, b1_se, amplitude, residual_rms, status",
             "(and mono_t2_ms) as .nii.gz maps, PNG previews and summary.json in --out.",
             "Status: 0 outside mask, 1 ok, 2 hit bound, 3 low signal, 4 invalid input,",
             "5 not converged.",
             "B1 is reported folded (refocusing angle <= 180 deg) for constant trains",
-            "without --slice-profile: B1 = 1 + x and 1 - x give the same magnitude",
-            "train. Near B1 = 1 the B1 estimate is weak; see b1_se."})
+            "without slice selection: B1 = 1 + x and 1 - x give the same magnitude",
+            "train. b1_se is '-' (null) where the data do not determine B1."})
 public final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
@@ -68,24 +71,12 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--b1-map", paramLabel = "FILE", description = "3-D NIfTI B1 map (flip-angle scale): B1 is fixed per voxel.")
     Path b1Map;
 
-    @Option(names = "--slice-profile", paramLabel = "P", defaultValue = "none",
-            description = "none, sinc:TBW, gauss:TBW or a pulse-envelope file (one amplitude per line); Bloch-simulated (default: ${DEFAULT-VALUE}).")
-    String sliceProfile;
-
-    @Option(names = "--slice-positions", paramLabel = "N", defaultValue = "16",
-            description = "Positions across the half slice for --slice-profile (default: ${DEFAULT-VALUE}).")
-    int slicePositions;
-
-    @Option(names = "--refocus-slice-ratio", paramLabel = "R", defaultValue = "1.0",
-            description = "Refocusing-to-excitation slice thickness ratio (default: ${DEFAULT-VALUE}).")
-    double refocusRatio;
-
     @Option(names = "--noise-sigma", paramLabel = "S",
             description = "Channel noise sigma (signal units) for the Rician mean model, or 'auto' (volumes: from outside the mask).")
     String noiseSigma;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 in ms (default: ${DEFAULT-VALUE}).")
-    double t1Ms;
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Fixed T1 in ms (default: the protocol tissue's T1).")
+    Double t1Ms;
 
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound (default: ${DEFAULT-VALUE}).")
     double t2MinMs;
@@ -131,8 +122,8 @@ public final class FitCommand implements Callable<Integer> {
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
-        SliceProfile profile = SliceProfiles.parse(sliceProfile, train, slicePositions, refocusRatio);
-        FitSettings settings = new FitSettings(train, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, true, Double.NaN, profile,
+        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : p.tissue().t1Ms();
+        FitSettings settings = new FitSettings(p, t1, t2MinMs, t2MaxMs, b1Min, b1Max, true, Double.NaN,
                 monoOffset, monoSkipFirst);
         String name = data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean volume = name.endsWith(".nii") || name.endsWith(".nii.gz");
@@ -143,7 +134,7 @@ public final class FitCommand implements Callable<Integer> {
             }
             double sigma = tableSigma();
             T2Fit.Factory f = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, out, force).run(data, format == Format.json, o);
+            new FitTableRun(f, p, out, force).run(data, format == Format.json, o, t1Source());
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -153,18 +144,23 @@ public final class FitCommand implements Callable<Integer> {
         info.put("model", model.name().toLowerCase(Locale.ROOT));
         info.put("echoes", train.echoes());
         info.put("echo_spacing_ms", train.echoSpacingMs());
-        info.put("t1_ms", t1Ms);
+        info.put("t1_ms", t1);
+        info.put("t1_source", t1Source());
         info.put("t2_bounds_ms", List.of(t2MinMs, t2MaxMs));
         info.put("b1_bounds", List.of(b1Min, settings.effectiveB1Max()));
         info.put("b1_folded", settings.foldActive());
-        info.put("slice_profile", profile.label());
-        info.put("slice_positions", profile.positions());
+        info.put("acquisition", Acquisitions.describe(p));
         info.put("b1_map", b1Map == null ? null : b1Map.toString());
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
         new FitVolumeRun(settings, model, compareMono, noiseSigma, out, force, quiet)
                 .run(data, mask, b1Map, n, info, o, spec.commandLine().getErr());
         return 0;
+    }
+
+    /** @return where the fixed T1 came from, as printed and written to JSON */
+    private String t1Source() {
+        return t1Ms != null ? "--t1-ms" : "protocol tissue";
     }
 
     /** Parses --noise-sigma for tables (no 'auto'). */

@@ -34,7 +34,7 @@ final class FitTableRun {
         this.force = force;
     }
 
-    void run(Path csv, boolean json, PrintWriter o) {
+    void run(Path csv, boolean json, PrintWriter o, String t1Source) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
@@ -64,10 +64,13 @@ final class FitTableRun {
         }
         if (json) {
             Map<String, Object> root = new LinkedHashMap<>();
+            root.put("t1_ms", factory.settings().t1Ms());
+            root.put("t1_source", t1Source);
             root.put("fits", rows);
             o.print(Json.write(root));
         } else {
             o.print(table(rows));
+            o.printf(Locale.ROOT, "T1 fixed at %s ms (%s)%n", fmt(factory.settings().t1Ms(), 0).replace("Infinity", "inf"), t1Source);
         }
         o.flush();
         ChartFiles.write(chart.build(), plotFile, 900, 560, force);

@@ -12,6 +12,9 @@ import org.echotrellis.epg.CpmgTrain;
  * with Gaussian noise in both channels (Rician magnitude). All values are our own scenario.
  */
 final class SpectrumPhantom {
+    /** T1 of the white-matter pools in ms (the basis T1 of the demo's fit). */
+    static final double T1_MS = 1000;
+
     /** Region codes. */
     static final int BACKGROUND = 0;
     static final int GREY = 1;

@@ -32,7 +32,7 @@ import org.echotrellis.plot.MapPreview;
 final class SpectrumVolumes {
     private SpectrumVolumes() { }
 
-    static VolumeResult run(Path data, Path mask, BasisCache cache, SpectrumOptions o, int threads, Path out,
+    static VolumeResult run(Path data, Path mask, Path b1Map, BasisCache cache, SpectrumOptions o, int threads, Path out,
                             boolean force, Map<String, Object> settings, ProgressReporter progress,
                             PrintWriter stdout) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
@@ -40,7 +40,8 @@ final class SpectrumVolumes {
         }
         try (NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
-            VolumeJob job = new VolumeJob(in, m, Optional.empty(), threads, VolumeJob.DEFAULT_SLAB_VALUES);
+            Optional<NiftiImage> b1 = b1Map == null ? Optional.empty() : Optional.of(Nifti.read(b1Map));
+            VolumeJob job = new VolumeJob(in, m, b1, threads, VolumeJob.DEFAULT_SLAB_VALUES);
             if (job.echoes() != cache.echoes()) {
                 throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
                         + cache.echoes());
@@ -88,8 +89,31 @@ final class SpectrumVolumes {
         }
         Map<String, Object> s = new LinkedHashMap<>(settings);
         s.put("outputs", outputs(scalars));
-        RunSummary.write(out.resolve("summary.json"), r, s, force);
+        org.echotrellis.io.AtomicFiles.writeString(out.resolve("summary.json"), summary(r, s), force);
     }
+
+    /**
+     * summary.json with the status counts under the spectrum's own names: the shared status map's
+     * codes 2 and 5 mean "regularisation target not reached" and "NNLS iteration limit" here.
+     */
+    static String summary(VolumeResult r, Map<String, Object> settings) {
+        com.fasterxml.jackson.databind.node.ObjectNode root = RunSummary.build(r, settings);
+        com.fasterxml.jackson.databind.node.ObjectNode counts =
+                (com.fasterxml.jackson.databind.node.ObjectNode) root.get("status_counts");
+        com.fasterxml.jackson.databind.node.ObjectNode renamed = root.objectNode();
+        counts.fields().forEachRemaining(e -> renamed.set(STATUS_NAMES.getOrDefault(e.getKey(), e.getKey()), e.getValue()));
+        root.set("status_counts", renamed);
+        try {
+            return org.echotrellis.io.Json.MAPPER.writeValueAsString(root) + "\n";
+        } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** Shared status labels → spectrum meanings. */
+    static final Map<String, String> STATUS_NAMES = Map.of(
+            "hit_bound", "regularisation_target_not_reached",
+            "not_converged", "nnls_iteration_limit");
 
     /** Fails before any work if an output exists and --force is not given (same message as the writer). */
     static void refuseExisting(Path out, SpectrumOptions o, boolean force) {
@@ -116,7 +140,8 @@ final class SpectrumVolumes {
             files.add(n + ".nii.gz");
         }
         files.add("status.nii.gz (0 outside mask, 1 ok, 2 regularisation target not reached, "
-                + "3 low signal (largest fitted echo < 10 noise SD), 4 invalid input, 5 NNLS iteration limit)");
+                + "3 low signal (largest fitted echo < 10 noise SD), 4 invalid input or B1 map value outside the "
+                + "refocusing range, 5 NNLS iteration limit)");
         return files;
     }
 

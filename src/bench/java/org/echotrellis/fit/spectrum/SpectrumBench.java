@@ -41,7 +41,7 @@ public class SpectrumBench {
     /** Shared: basis cache and decays. */
     @State(Scope.Benchmark)
     public static class Shared {
-        @Param({"chi2", "none", "gcv"})
+        @Param({"misfit", "none", "cross-validation"})
         public String regularisation;
 
         BasisCache cache;
@@ -50,7 +50,7 @@ public class SpectrumBench {
 
         @Setup
         public void setup() {
-            options = SpectrumOptions.DEFAULT.withRegularisation(Regularisation.parse(regularisation));
+            options = SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true).withRegularisation(Regularisation.parse(regularisation));
             cache = BasisCache.build(CpmgTrain.constant(32, 10, 180), 1000, options.grid(), options.search());
             decays = new double[VOXELS * 32];
             SplittableRandom rnd = new SplittableRandom(42);

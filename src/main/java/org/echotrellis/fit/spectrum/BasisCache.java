@@ -1,20 +1,30 @@
 package org.echotrellis.fit.spectrum;
 
+import java.util.stream.IntStream;
+
 import org.echotrellis.Checks;
 import org.echotrellis.epg.CpmgEngine;
 import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.fit.Acquisitions;
+import org.echotrellis.fit.TrainSource;
+import org.echotrellis.sequence.Protocol;
 
 /**
  * EPG basis matrices of a spectrum fit, built once per refocusing angle and shared read-only by all
  * worker threads: never rebuilt per voxel.
  *
  * <p>Column j of the basis at refocusing angle α is the echo train of the protocol for T2 = T2_j
- * (grid), fixed T1, M0 = 1, computed by the EPG CPMG engine, as in the stimulated-echo corrected
- * multi-component analysis of Prasloski et al. (MRM 67:1803, 2012). The angle α acts as a scale
- * α/α_ref on every refocusing flip of the protocol (α_ref = its largest refocusing flip; for a
- * constant train, α is the refocusing flip itself). The excitation is kept nominal: with CPMG timing
- * it only scales the whole train (parity result, METHODS §1), so amplitudes stay comparable between
- * angles.
+ * (grid), fixed T1, M0 = 1, as in the stimulated-echo corrected multi-component analysis of
+ * Prasloski et al. (MRM 67:1803, 2012). α_ref is the protocol's largest refocusing flip (for a
+ * constant train, the refocusing flip itself).
+ * <ul>
+ *   <li>Ideal-pulse CPMG train (no slice selection, repetition time or diffusion): the EPG CPMG
+ *   engine with α/α_ref scaling every refocusing flip; the excitation is kept nominal (with CPMG
+ *   timing it only scales the whole train, parity result, METHODS §1).</li>
+ *   <li>Any other acquisition: the protocol's whole acquisition model (slice profile at the actual
+ *   B1, steady state, diffusion) at B1 = α/α_ref, which scales every pulse of the acquisition; α is
+ *   then the refocusing angle at the slice centre.</li>
+ * </ul>
  *
  * <p>Two sets are cached: the exact bases (and Gram matrices AᵀA) at the search angles, and a table
  * every {@value #TABLE_STEP_DEG}° over the search range, from which the basis at the refined angle
@@ -36,6 +46,8 @@ public final class BasisCache {
     private final double tableLoDeg;
     private final double tableStepDeg;
     private final double[][] table;
+    private double referenceDeg;
+    private boolean symmetric;
 
     private BasisCache(int echoes, T2Grid grid, RefocusSearch search, double[][] searchBasis,
                        double[][] searchGram, double tableLoDeg, double tableStepDeg, double[][] table) {
@@ -50,15 +62,37 @@ public final class BasisCache {
     }
 
     /**
-     * Builds the cache for a protocol's echo train.
+     * Builds the cache for a protocol's acquisition.
      *
-     * @param train  the protocol's CPMG train (must be CPMG-phased)
-     * @param t1Ms   fixed T1 of the basis in ms (Prasloski et al. use 1 s)
+     * @param protocol the acquisition (must be a CPMG train)
+     * @param t1Ms   fixed T1 of the basis in ms
      * @param grid   T2 grid
      * @param search refocusing angles (a fixed angle gives one basis and no table)
      * @return the cache
      */
+    public static BasisCache build(Protocol protocol, double t1Ms, T2Grid grid, RefocusSearch search) {
+        CpmgTrain train = protocol.cpmg().orElseThrow(() -> new org.echotrellis.InputException(
+                "the protocol's echo train is not CPMG-phased (refocusing phase = excitation phase ± 90°); "
+                        + "spectrum fitting needs a CPMG train"));
+        return build(train, Acquisitions.plainCpmg(protocol) ? null : new TrainSource(protocol, t1Ms), t1Ms, grid,
+                search);
+    }
+
+    /**
+     * Builds the cache for an ideal-pulse CPMG train.
+     *
+     * @param train  the CPMG train (must be CPMG-phased)
+     * @param t1Ms   fixed T1 of the basis in ms
+     * @param grid   T2 grid
+     * @param search refocusing angles
+     * @return the cache
+     */
     public static BasisCache build(CpmgTrain train, double t1Ms, T2Grid grid, RefocusSearch search) {
+        return build(train, null, t1Ms, grid, search);
+    }
+
+    private static BasisCache build(CpmgTrain train, TrainSource source, double t1Ms, T2Grid grid,
+                                    RefocusSearch search) {
         Checks.positiveOrInfinite("--t1-ms", t1Ms, null);
         Checks.require(train.isCpmgPhased(),
                 "the protocol's echo train is not CPMG-phased (refocusing phase = excitation phase ± 90°); "
@@ -72,27 +106,64 @@ public final class BasisCache {
                 "the protocol's excitation flip " + train.excitationFlipDeg()
                         + "° tips no magnetisation into the transverse plane; spectrum fitting needs an excitation "
                         + "between 0° and 180° (exclusive), e.g. 90°");
-        Builder b = new Builder(train, t1Ms, grid, ref);
+        final double refDeg = ref;
+        ThreadLocal<Builder> builders = ThreadLocal.withInitial(() -> new Builder(train, t1Ms, grid, refDeg));
         int m = train.echoes();
         int n = grid.bins();
         double[][] basis = new double[search.count()][];
         double[][] gram = new double[search.count()][];
-        for (int k = 0; k < search.count(); k++) {
-            basis[k] = b.basis(search.angleDeg(k));
+        IntStream.range(0, search.count()).parallel().forEach(k -> {
+            basis[k] = basisAt(builders.get(), source, grid, refDeg, search.angleDeg(k));
             gram[k] = new double[n * n];
             Gram.fill(basis[k], m, n, gram[k]);
-        }
+        });
         double[][] table = new double[0][];
         double step = TABLE_STEP_DEG;
         if (!search.isFixed()) {
             int steps = (int) Math.ceil((search.hiDeg() - search.loDeg()) / TABLE_STEP_DEG - 1e-9);
-            step = (search.hiDeg() - search.loDeg()) / steps;
-            table = new double[steps + 1][];
-            for (int s = 0; s <= steps; s++) {
-                table[s] = b.basis(search.loDeg() + s * step);
+            final double h = (search.hiDeg() - search.loDeg()) / steps;
+            step = h;
+            double[][] tab = new double[steps + 1][];
+            IntStream.rangeClosed(0, steps).parallel().forEach(s ->
+                    tab[s] = basisAt(builders.get(), source, grid, refDeg, search.loDeg() + s * h));
+            table = tab;
+        }
+        BasisCache c = new BasisCache(m, grid, search, basis, gram, search.loDeg(), step, table);
+        c.referenceDeg = ref;
+        c.symmetric = source == null;
+        return c;
+    }
+
+    /** @return the reference refocusing flip α_ref in degrees (the protocol's largest): angle = B1·α_ref */
+    public double referenceDeg() {
+        return referenceDeg;
+    }
+
+    /**
+     * @return true for the ideal-pulse CPMG basis, whose magnitude trains at α and 360° − α agree,
+     *         so a B1 above 180°/α_ref is folded
+     */
+    public boolean symmetric() {
+        return symmetric;
+    }
+
+    /** The basis at one angle: the exact CPMG builder, or the whole acquisition at B1 = α/α_ref. */
+    private static double[] basisAt(Builder b, TrainSource source, T2Grid grid, double refDeg, double angleDeg) {
+        if (source == null) {
+            return b.basis(angleDeg);
+        }
+        int m = source.echoes();
+        double[] t2 = grid.t2Ms();
+        double[] a = new double[m * t2.length];
+        double[] re = new double[m];
+        double[] im = new double[m];
+        for (int j = 0; j < t2.length; j++) {
+            source.train(t2[j], angleDeg / refDeg, re, im, 0);
+            for (int e = 0; e < m; e++) {
+                a[j * m + e] = Math.hypot(re[e], im[e]);
             }
         }
-        return new BasisCache(m, grid, search, basis, gram, search.loDeg(), step, table);
+        return a;
     }
 
     /** Simulates basis columns through the EPG engine, {@value #LANES} T2 values at a time. */

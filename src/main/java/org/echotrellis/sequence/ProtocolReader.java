@@ -36,12 +36,13 @@ public final class ProtocolReader {
     public static final int MAX_TOTAL_DEPHASING = 20_000;
 
     private static final Set<String> TOP = keys("name", "description", "tissue", "train", "events", "b1_scale");
-    private static final Set<String> TISSUE = keys("preset", "name", "t1_ms", "t2_ms");
-    private static final Set<String> TRAIN = keys("echoes", "echo_spacing_ms", "excitation", "refocusing", "b1_scale");
-    private static final Set<String> EXCITATION = keys("flip_deg", "phase_deg");
-    private static final Set<String> REFOCUSING = keys("flip_deg", "flips_deg", "phase_deg", "phases_deg");
+    private static final Set<String> TISSUE = keys("preset", "name", "t1_ms", "t2_ms", "diffusivity_mm2_per_s");
+    private static final Set<String> TRAIN = keys("echoes", "echo_spacing_ms", "excitation", "refocusing", "b1_scale",
+            "repetition_ms", "slice", "crusher");
+    private static final Set<String> EXCITATION = keys("flip_deg", "phase_deg", "pulse");
+    private static final Set<String> REFOCUSING = keys("flip_deg", "flips_deg", "phase_deg", "phases_deg", "pulse");
     private static final Set<String> EVENT = keys("rf", "interval", "echo");
-    private static final Set<String> RF = keys("flip_deg", "phase_deg");
+    private static final Set<String> RF = keys("flip_deg", "phase_deg", "pulse");
     private static final Set<String> INTERVAL = keys("duration_ms", "dephasing");
     private static final Set<String> ECHO = keys("label");
 
@@ -169,9 +170,10 @@ public final class ProtocolReader {
             if (t.containsKey("b1_scale")) {
                 b1 = b1(t.get("b1_scale"));
             }
-            return Protocol.ofTrain(name, description, tissue, b1, train(tn), src);
+            CpmgTrain train = train(tn);
+            return Protocol.ofTrain(name, description, tissue, b1, train, src, AcquisitionReader.read(tn, train, src));
         }
-        return new Protocol(name, description, tissue, b1, events(top.get("events")), Optional.empty(), src);
+        return new Protocol(name, description, tissue, b1, events(top.get("events"), src), Optional.empty(), src);
     }
 
     private static String fileStem(String src) {
@@ -206,7 +208,8 @@ public final class ProtocolReader {
         String name = m.containsKey("name") ? m.get("name").text("name") : base != null ? base.name() : "";
         double t1 = m.containsKey("t1_ms") ? relaxation(m.get("t1_ms"), "t1_ms") : base.t1Ms();
         double t2 = m.containsKey("t2_ms") ? relaxation(m.get("t2_ms"), "t2_ms") : base.t2Ms();
-        return new Tissue(name, t1, t2);
+        double d = m.containsKey("diffusivity_mm2_per_s") ? AcquisitionReader.diffusivity(m.get("diffusivity_mm2_per_s")) : 0;
+        return new Tissue(name, t1, t2, d);
     }
 
     private static double relaxation(Node n, String key) {
@@ -233,7 +236,7 @@ public final class ProtocolReader {
         return v;
     }
 
-    private static double duration(Node n, String key) {
+    static double duration(Node n, String key) {
         double v = n.number(key);
         if (!(v > 0) || Double.isInfinite(v) || v > 1e7) {
             throw new InputException(n.where + ": " + key + " must be > 0 and at most 1e7 ms, got " + v);
@@ -299,7 +302,7 @@ public final class ProtocolReader {
         return out;
     }
 
-    private static Node require(Node owner, Map<String, Node> m, String key, String what) {
+    static Node require(Node owner, Map<String, Node> m, String key, String what) {
         Node n = m.get(key);
         if (n == null) {
             throw new InputException(owner.where + ": " + what + " needs '" + key + "'");
@@ -307,7 +310,7 @@ public final class ProtocolReader {
         return n;
     }
 
-    private static List<Event> events(Node ln) {
+    private static List<Event> events(Node ln, String src) {
         List<Node> list = ln.list("events");
         Checks.require(!list.isEmpty(), ln.where + ": events must not be empty");
         if (list.size() > Protocol.MAX_EVENTS) {
@@ -335,7 +338,9 @@ public final class ProtocolReader {
                     Map<String, Node> b = body.map("rf");
                     double f = flip(require(body, b, "flip_deg", "rf"), "rf.flip_deg");
                     double ph = b.containsKey("phase_deg") ? phase(b.get("phase_deg"), "rf.phase_deg") : 0;
-                    out.add(new Event.Rf(f, ph));
+                    Optional<RfPulse> pulse = b.containsKey("pulse")
+                            ? Optional.of(AcquisitionReader.pulse(b.get("pulse"), "rf.pulse", src)) : Optional.empty();
+                    out.add(new Event.Rf(f, ph, pulse));
                 }
                 case "interval" -> {
                     Node.allowOnly(body, "interval", INTERVAL);

@@ -20,7 +20,7 @@ public final class Acquisitions {
      * @return true if the acquisition is the ideal-pulse CPMG train of {@link Protocol#cpmg()} alone
      */
     public static boolean plainCpmg(Protocol p) {
-        return p.cpmg().isPresent() && !sliceSelective(p);
+        return p.cpmg().isPresent() && p.isIdealAcquisition();
     }
 
     /**
@@ -28,7 +28,7 @@ public final class Acquisitions {
      * @return true if the echo is the integral across a selected slice
      */
     public static boolean sliceSelective(Protocol p) {
-        return false;
+        return p.acquisition().sliceSelective();
     }
 
     /**
@@ -46,7 +46,16 @@ public final class Acquisitions {
             m.put("excitation_flip_deg", t.excitationFlipDeg());
             m.put("refocusing_flip_deg", t.refocusFlipDeg(0));
         });
-        m.put("slice_selective", sliceSelective(p));
+        org.echotrellis.sequence.Acquisition a = p.acquisition();
+        m.put("slice_selective", a.sliceSelective());
+        a.excitationPulse().ifPresent(x -> m.put("excitation_pulse", x.label()));
+        a.refocusingPulse().ifPresent(x -> m.put("refocusing_pulse", x.label()));
+        if (a.sliceSelective()) {
+            m.put("refocusing_width_ratio", a.refocusingWidthRatio());
+        }
+        m.put("repetition_ms", a.hasRepetition() ? a.repetitionMs() : null);
+        a.crusher().ifPresent(c -> m.put("crusher", Map.of("cycles_per_mm", c.cyclesPerMm(), "duration_ms", c.durationMs())));
+        m.put("diffusivity_mm2_per_s", p.tissue().diffusivityMm2PerS());
         m.put("model", plainCpmg(p) ? "ideal-pulse CPMG (exact EPG per evaluation)" : "whole acquisition, tabulated over T2 and B1");
         return m;
     }

@@ -161,7 +161,7 @@ public final class T2Fit implements VoxelKernel {
         }
 
         private static TrainSurface surface(FitSettings s) {
-            return TrainSurface.build(new TrainSource(s.protocol(), s.t1Ms()), s.t2MinMs(), s.t2MaxMs(), s.b1Min(),
+            return TrainSurface.build(new TrainSource(s.protocol(), s.t1Ms(), s.b1Max() + 0.1), s.t2MinMs(), s.t2MaxMs(), s.b1Min(),
                     s.b1Max());
         }
 

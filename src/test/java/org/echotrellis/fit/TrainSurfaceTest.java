@@ -40,6 +40,21 @@ class TrainSurfaceTest {
         return worst;
     }
 
+    /** 2-D acquisition of the accuracy floors: sinc TBW 4 (2 ms) on both pulses, equal widths, 32 echoes, ESP 10 ms. */
+    static Protocol slice(double widthRatio, double trMs) {
+        org.echotrellis.sequence.RfPulse e = org.echotrellis.sequence.RfPulse.of("sinc", 4, 2);
+        org.echotrellis.sequence.Acquisition a = new org.echotrellis.sequence.Acquisition(java.util.Optional.of(e),
+                java.util.Optional.of(e), true, widthRatio, trMs, java.util.Optional.empty());
+        return Protocol.ofTrain("slice", "", new Tissue("x", 1000, 80), 1.0, CpmgTrain.constant(32, 10, 180), "test", a);
+    }
+
+    @Test
+    void sliceSelectiveTrainsInterpolateWithin1e4OfEchoOne() {
+        // Reference: the acquisition model evaluated directly at each point (the quantity tabulated).
+        double e = worstError(slice(1, Double.POSITIVE_INFINITY), 1000, 10, 1000, 0.5, 1.5, 6, 60);
+        assertTrue(e < 1e-4, "worst interpolation error " + e);
+    }
+
     @Test
     void idealPulseTrainsInterpolateWithin1e4OfEchoOne() {
         // Reference: direct EPG simulation of the same protocol at each point (the quantity tabulated).

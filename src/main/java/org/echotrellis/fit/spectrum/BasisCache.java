@@ -74,8 +74,13 @@ public final class BasisCache {
         CpmgTrain train = protocol.cpmg().orElseThrow(() -> new org.echotrellis.InputException(
                 "the protocol's echo train is not CPMG-phased (refocusing phase = excitation phase ± 90°); "
                         + "spectrum fitting needs a CPMG train"));
-        return build(train, Acquisitions.plainCpmg(protocol) ? null : new TrainSource(protocol, t1Ms), t1Ms, grid,
-                search);
+        double ref = 0;
+        for (int i = 0; i < train.echoes(); i++) {
+            ref = Math.max(ref, train.refocusFlipDeg(i));
+        }
+        TrainSource source = Acquisitions.plainCpmg(protocol) || !(ref > 0) ? null
+                : new TrainSource(protocol, t1Ms, search.hiDeg() / ref * 1.01);
+        return build(train, source, t1Ms, grid, search);
     }
 
     /**
@@ -152,16 +157,12 @@ public final class BasisCache {
         if (source == null) {
             return b.basis(angleDeg);
         }
-        int m = source.echoes();
         double[] t2 = grid.t2Ms();
-        double[] a = new double[m * t2.length];
-        double[] re = new double[m];
-        double[] im = new double[m];
-        for (int j = 0; j < t2.length; j++) {
-            source.train(t2[j], angleDeg / refDeg, re, im, 0);
-            for (int e = 0; e < m; e++) {
-                a[j * m + e] = Math.hypot(re[e], im[e]);
-            }
+        double[] a = new double[source.echoes() * t2.length];
+        double[] im = new double[a.length];
+        source.row(t2, angleDeg / refDeg, a, im);
+        for (int i = 0; i < a.length; i++) {
+            a[i] = Math.hypot(a[i], im[i]);
         }
         return a;
     }

@@ -80,7 +80,11 @@ final class EpgFitter {
     private final double b1HiFit;
     private int lastIterations;
 
+    /** True when the train is not folded: a start on each side of the split B1 is always refined. */
+    private final boolean alwaysBoth;
+
     EpgFitter(FitSettings settings, StartDictionary dictionary, TrainSurface surface) {
+        this.alwaysBoth = !settings.foldActive();
         this.settings = settings;
         this.signal = new EpgSignal(settings, surface);
         this.dictionary = dictionary;
@@ -147,7 +151,7 @@ final class EpgFitter {
             double bestQ = toParam(starts[1]);
             boolean lastIsBest = false;
             for (int c = 0; c < nc; c++) {
-                if (c > 0 && !(misfits[c] <= CLOSE * misfits[0])) {
+                if (c > 0 && !alwaysBoth && !(misfits[c] <= CLOSE * misfits[0])) {
                     continue;
                 }
                 x2[0] = Math.log(starts[2 * c]);

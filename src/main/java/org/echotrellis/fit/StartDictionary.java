@@ -31,6 +31,9 @@ final class StartDictionary {
     /** Most starting candidates returned. */
     static final int MAX_CANDIDATES = 3;
 
+    /** B1 separating the two basins of an unfolded train (180° / nominal refocusing), NaN when folded. */
+    private final double split;
+
     StartDictionary(FitSettings s, TrainSurface surface) {
         double lo = s.t2MinMs();
         double hi = s.t2MaxMs();
@@ -40,6 +43,11 @@ final class StartDictionary {
         lnT2Lo = Math.log(lo);
         lnT2Hi = Math.log(hi);
         double stepB1 = s.foldActive() ? 0.1 : 0.05;
+        double maxRef = 0;
+        for (int i = 0; i < s.train().echoes(); i++) {
+            maxRef = Math.max(maxRef, s.train().refocusFlipDeg(i));
+        }
+        split = s.foldActive() || !(maxRef > 0) ? Double.NaN : 180.0 / maxRef;
         nB1 = Math.max(2, (int) Math.ceil((b1Hi - b1Lo) / stepB1) + 1);
         echoes = s.train().echoes();
         t2 = new double[nT2];
@@ -125,7 +133,39 @@ final class StartDictionary {
         }
         int count = 0;
         double[] score = misfits;
-        for (int a = a0; a < a1; a++) {
+        if (!Double.isNaN(split) && Double.isNaN(fixedB1)) {
+            // both basins, always: the best atom below and the best at or above the split
+            int lo = -1;
+            int hi = -1;
+            for (int a = a0; a < a1; a++) {
+                double d = work[a];
+                if (!(d > 0)) {
+                    continue;
+                }
+                if (b1[a / nT2] < split) {
+                    lo = lo < 0 || d > work[lo] ? a : lo;
+                } else {
+                    hi = hi < 0 || d > work[hi] ? a : hi;
+                }
+            }
+            if (lo >= 0) {
+                best[count] = lo;
+                score[count++] = work[lo] * work[lo];
+            }
+            if (hi >= 0) {
+                best[count] = hi;
+                score[count++] = work[hi] * work[hi];
+            }
+            if (count == 2 && score[1] > score[0]) {
+                int t = best[0];
+                best[0] = best[1];
+                best[1] = t;
+                double u = score[0];
+                score[0] = score[1];
+                score[1] = u;
+            }
+        }
+        for (int a = a0; a < a1 && !(!Double.isNaN(split) && Double.isNaN(fixedB1)); a++) {
             double d = work[a];
             if (!(d > 0)) {
                 continue;

@@ -160,6 +160,22 @@ public final class T2Fit implements VoxelKernel {
             this.outputs = List.copyOf(o);
         }
 
+        /**
+         * The same run with another noise σ, sharing the model table and the start dictionary (both
+         * independent of σ).
+         *
+         * @param base the factory to share with
+         * @param noiseSigma channel noise σ, or NaN
+         */
+        public Factory(Factory base, double noiseSigma) {
+            this.settings = base.settings.withNoiseSigma(noiseSigma);
+            this.model = base.model;
+            this.compareMono = base.compareMono;
+            this.surface = base.surface;
+            this.dictionary = base.dictionary;
+            this.outputs = base.outputs;
+        }
+
         private static TrainSurface surface(FitSettings s) {
             return TrainSurface.build(new TrainSource(s.protocol(), s.t1Ms(), s.b1Max() + 0.1), s.t2MinMs(), s.t2MaxMs(), s.b1Min(),
                     s.b1Max());

@@ -36,7 +36,7 @@ final class SpectrumDemo implements DemoSection {
         Protocol p = ProtocolReader.readBuiltIn("brain-mwi-32.yaml");
         CpmgTrain train = p.cpmg().orElseThrow();
         SpectrumOptions o = SpectrumOptions.defaults(p).withT1Ms(SpectrumPhantom.T1_MS);
-        SpectrumPhantom ph = new SpectrumPhantom(NX, NY, train, SNR, SEED);
+        SpectrumPhantom ph = new SpectrumPhantom(NX, NY, p, SNR, SEED);
         BasisCache cache = BasisCache.build(p, o.t1Ms(), o.grid(), o.search());
         SpectrumFitter fitter = new SpectrumFitter(cache, o);
         int n = NX * NY;

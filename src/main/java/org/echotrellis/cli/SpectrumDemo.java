@@ -96,7 +96,7 @@ final class SpectrumDemo implements DemoSection {
 
     /** The spectrum settings in words, as the demo and the README state them. */
     static String settingsInWords(SpectrumOptions o) {
-        return String.format(Locale.ROOT, "T2 grid %.3g–%.4g ms in %d steps of %.0f %%, misfit allowed to grow by %.1f %%",
+        return String.format(Locale.ROOT, "T2 grid %.3g–%.4g ms, %d bins %.0f %% apart, misfit allowed to grow by %.1f %%",
                 o.grid().minMs(), o.grid().maxMs(), o.grid().bins(), 100 * (o.grid().binRatio() - 1),
                 100 * (o.misfitIncrease() - 1));
     }
@@ -132,8 +132,8 @@ final class SpectrumDemo implements DemoSection {
         s.append(String.format(Locale.ROOT, "%nThe fraction of the spectrum between %.3g and %.3g ms is the usual myelin "
                         + "water fraction estimate; ", o.windows().get(0).loMs(), o.windows().get(0).hiMs()))
                 .append("here it is compared with the phantom's truth (the table above gives the measured offset). A ")
-                .append("low reading comes from the ")
-                .append("minimum-energy (identity) penalty shrinks the short-T2 amplitudes most, because their basis ")
+                .append("low reading comes from the minimum-energy (identity) penalty, which ")
+                .append("shrinks the short-T2 amplitudes most, because their basis ")
                 .append("columns carry the least signal energy, and noise lets the short pool trade amplitude with ")
                 .append("the main peak. Figures: `spectrum-fraction-map.png`, ")
                 .append("`spectrum-fraction-truth.png`, `spectrum-refocus-map.png`, `spectrum-refocus-truth.png`, ")

@@ -68,6 +68,7 @@ class SliceSpectrumFloorTest {
             out.append(String.format(java.util.Locale.ROOT, "B1 %.2f: median short fraction %.4f%n", B1[j], median));
             ok &= Math.abs(median - 0.15) <= 0.03;
         }
+        org.echotrellis.fit.SliceFitFloorTestAccess.record("slice-spectrum-bloch.txt", out.toString());
         assertTrue(ok, out.toString());
     }
 

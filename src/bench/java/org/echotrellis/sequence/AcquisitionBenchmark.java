@@ -58,6 +58,11 @@ public class AcquisitionBenchmark {
     public static class Out {
         double[] re = new double[ECHOES];
         double[] im = new double[ECHOES];
+        double[] t1s = new double[AcquisitionModel.LANES];
+        double[] t2s = new double[AcquisitionModel.LANES];
+        double[] b1s = new double[AcquisitionModel.LANES];
+        double[] reL = new double[AcquisitionModel.LANES * ECHOES];
+        double[] imL = new double[AcquisitionModel.LANES * ECHOES];
         int i;
 
         double t2() {
@@ -76,6 +81,19 @@ public class AcquisitionBenchmark {
         double t2 = o.t2();
         m.diffusionTr.echoes(4000, t2, o.b1(), o.re, o.im);
         bh.consume(o.re[ECHOES - 1]);
+    }
+
+    /** The same, {@value AcquisitionModel#LANES} trains per call in lock-step lanes. */
+    @Benchmark
+    @org.openjdk.jmh.annotations.OperationsPerInvocation(AcquisitionModel.LANES)
+    public void cpmgDiffusionRepetitionLanes(Models m, Out o, Blackhole bh) {
+        for (int l = 0; l < AcquisitionModel.LANES; l++) {
+            o.t1s[l] = 4000;
+            o.t2s[l] = o.t2();
+            o.b1s[l] = o.b1();
+        }
+        m.diffusionTr.echoes(o.t1s, o.t2s, o.b1s, AcquisitionModel.LANES, o.reL, o.imL);
+        bh.consume(o.reL[ECHOES - 1]);
     }
 
     /** Slice-selective train, no TR. */

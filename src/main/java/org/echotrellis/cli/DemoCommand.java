@@ -24,7 +24,8 @@ public final class DemoCommand implements Callable<Integer> {
             new FitDemo(),
             new SpectrumDemo(),
             new SliceDemo(),
-            new DesignDemo());
+            new DesignDemo(),
+            new ImageDemo());
 
     @Mixin
     CommonOptions common;

@@ -23,6 +23,7 @@ import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
 import org.echotrellis.sequence.Tissue;
 import org.echotrellis.sequence.TissuePresets;
+import picocli.CommandLine;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -39,7 +40,8 @@ import picocli.CommandLine.Spec;
             "RF figures are estimates for planning only: the scanner's own SAR monitor, local regulations and "
                 + "the responsible MR physicist decide."},
         footer = {"", "Targets: constant:LEVEL, ramp:FIRST:LAST, decay:PSEUDO_T2_MS[:START], list:FILE",
-            "Objectives: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B]",
+            "Objectives: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B],",
+            "  psf:ECHO:LINES[:TISSUE[:MIN_SIGNAL[:MAX_SIDELOBE]]] (value 1/FWHM), cnr:ECHO:LINES:MAX_FWHM_PX:TISSUE_A[:TISSUE_B]",
             "", "Examples:",
             "  echotrellis design --protocol sequences/fse-variable-1p5t.yaml \\",
             "      --target constant:0.4 --out fse-design",
@@ -88,7 +90,7 @@ public final class DesignCommand implements Callable<Integer> {
     @Option(names = "--b1rms-limit-ut", paramLabel = "UT", description = "B1+rms limit in µT (needs --tr-ms).")
     Double b1rmsLimitUt;
 
-    @Option(names = "--tr-ms", paramLabel = "MS", description = "Repetition time in ms, for B1+rms.")
+    @Option(names = "--tr-ms", paramLabel = "MS", description = "Repetition time in ms, for B1+rms; overrides the protocol's repetition_ms.")
     Double trMs;
 
     @Option(names = "--slices", paramLabel = "N", defaultValue = "1",
@@ -96,17 +98,18 @@ public final class DesignCommand implements Callable<Integer> {
     int slices;
 
     @Option(names = "--pulse", paramLabel = "SHAPE", defaultValue = "sinc:4",
-            description = "Refocusing pulse: rect, sinc:TBW, gauss:TBW or file:PATH (default: ${DEFAULT-VALUE}).")
+            description = "Refocusing pulse: rect, sinc:TBW, gauss:TBW or file:PATH; overrides the protocol's "
+                    + "refocusing pulse (default: the protocol's, else ${DEFAULT-VALUE}).")
     String pulse;
 
     @Option(names = "--pulse-ms", paramLabel = "MS", defaultValue = "2",
-            description = "Refocusing pulse duration in ms (default: ${DEFAULT-VALUE}).")
+            description = "Refocusing pulse duration in ms; overrides the protocol's (default: the protocol's, else ${DEFAULT-VALUE}).")
     double pulseMs;
 
-    @Option(names = "--excitation-pulse", paramLabel = "SHAPE", description = "Excitation pulse shape (default: --pulse).")
+    @Option(names = "--excitation-pulse", paramLabel = "SHAPE", description = "Excitation pulse shape; overrides the protocol's (default: the protocol's, else --pulse).")
     String excitationPulse;
 
-    @Option(names = "--excitation-pulse-ms", paramLabel = "MS", description = "Excitation pulse duration (default: --pulse-ms).")
+    @Option(names = "--excitation-pulse-ms", paramLabel = "MS", description = "Excitation pulse duration; overrides the protocol's (default: the protocol's, else --pulse-ms).")
     Double excitationPulseMs;
 
     @Option(names = "--knots", paramLabel = "K", defaultValue = "6",
@@ -168,7 +171,7 @@ public final class DesignCommand implements Callable<Integer> {
                 train.excitationFlipDeg(), tissue.t1Ms(), tissue.t2Ms(), p.b1Scale(), minFlipDeg, maxFlipDeg);
         ExposureLimits limits = new ExposureLimits(sarBudget,
                 b1rmsLimitUt == null ? Double.POSITIVE_INFINITY : Checks.positive("--b1rms-limit-ut", b1rmsLimitUt, null));
-        RfExposure rf = rf();
+        RfExposure rf = rf(p);
         SarReference reference = reference(p, train, rf);
         List<Tissue> compare = compareTissues(tissueName);
         if (out != null) {
@@ -201,11 +204,29 @@ public final class DesignCommand implements Callable<Integer> {
         return 0;
     }
 
-    private RfExposure rf() {
-        PulseShape refocus = PulseShape.parse(pulse, "--pulse");
-        PulseShape exc = excitationPulse == null ? refocus : PulseShape.parse(excitationPulse, "--excitation-pulse");
-        double excMs = excitationPulseMs == null ? pulseMs : excitationPulseMs;
-        return new RfExposure(refocus, pulseMs, exc, excMs, trMs == null ? Double.NaN : trMs, slices);
+    /**
+     * Pulse shapes, durations and TR for the RF exposure: an option given on the command line wins; else
+     * the protocol's {@code pulse} and {@code repetition_ms}; else the option defaults.
+     */
+    private RfExposure rf(Protocol p) {
+        CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
+        var acq = p.acquisition();
+        PulseShape refocus = !parsed.hasMatchedOption("--pulse") && acq.refocusingPulse().isPresent()
+                ? acq.refocusingPulse().get().envelope() : PulseShape.parse(pulse, "--pulse");
+        double refMs = !parsed.hasMatchedOption("--pulse-ms") && acq.refocusingPulse().isPresent()
+                ? acq.refocusingPulse().get().durationMs() : pulseMs;
+        PulseShape exc;
+        if (excitationPulse != null) {
+            exc = PulseShape.parse(excitationPulse, "--excitation-pulse");
+        } else if (acq.excitationPulse().isPresent()) {
+            exc = acq.excitationPulse().get().envelope();
+        } else {
+            exc = refocus;
+        }
+        double excMs = excitationPulseMs != null ? excitationPulseMs
+                : acq.excitationPulse().isPresent() ? acq.excitationPulse().get().durationMs() : refMs;
+        double tr = trMs != null ? trMs : acq.hasRepetition() ? acq.repetitionMs() : Double.NaN;
+        return new RfExposure(refocus, refMs, exc, excMs, tr, slices);
     }
 
     private SarReference reference(Protocol p, CpmgTrain train, RfExposure rf) {
@@ -214,13 +235,13 @@ public final class DesignCommand implements Callable<Integer> {
                     "--reference-protocol, --reference-tr-ms and --reference-slices need --reference-sar-w-per-kg");
             return null;
         }
-        Checks.require(trMs != null, "--reference-sar-w-per-kg needs --tr-ms");
+        Checks.require(rf.hasTr(), "--reference-sar-w-per-kg needs --tr-ms (or repetition_ms in the protocol)");
         CpmgTrain ref = train;
         if (referenceProtocol != null) {
             ref = ProtocolReader.read(referenceProtocol).cpmg().orElseThrow(() -> new InputException(referenceProtocol
                     + ": the reference protocol must be a CPMG echo train"));
         }
-        RfExposure refRf = rf.withTiming(referenceTrMs == null ? trMs : referenceTrMs,
+        RfExposure refRf = rf.withTiming(referenceTrMs == null ? rf.trMs() : referenceTrMs,
                 referenceSlices == null ? slices : referenceSlices);
         return new SarReference(referenceSar, refRf.powerUt2(ref.excitationFlipDeg(), ref.refocusFlipsDeg()));
     }

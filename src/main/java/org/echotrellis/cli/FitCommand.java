@@ -2,19 +2,17 @@ package org.echotrellis.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.LinkedHashMap;
-import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 
 import org.echotrellis.InputException;
 import org.echotrellis.epg.CpmgTrain;
-import org.echotrellis.fit.Acquisitions;
 import org.echotrellis.fit.FitModel;
-import org.echotrellis.fit.FitSettings;
 import org.echotrellis.fit.T2Fit;
+import org.echotrellis.fit.volume.FitOptions;
+import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
 import picocli.CommandLine.Command;
@@ -71,6 +69,14 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--b1-map", paramLabel = "FILE", description = "3-D NIfTI B1 map (flip-angle scale): B1 is fixed per voxel.")
     Path b1Map;
 
+    @Option(names = "--b1-map-units", paramLabel = "U", defaultValue = "scale",
+            description = "Values of --b1-map: scale (1 = nominal) or percent (100 = nominal) (default: ${DEFAULT-VALUE}).")
+    B1Units b1MapUnits;
+
+    @Option(names = "--outside-mask-value", paramLabel = "V", defaultValue = "nan",
+            description = "Value of the maps outside the mask: nan or a number such as 0 (default: ${DEFAULT-VALUE}).")
+    String outsideMask;
+
     @Option(names = "--noise-sigma", paramLabel = "S",
             description = "Channel noise sigma (signal units) for the Rician mean model, or 'auto' (volumes: from outside the mask).")
     String noiseSigma;
@@ -114,6 +120,9 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar.")
     boolean quiet;
 
+    /** Units of a B1 map file. */
+    enum B1Units { scale, percent }
+
     /** Stdout formats for decay tables. */
     enum Format { table, json }
 
@@ -122,9 +131,9 @@ public final class FitCommand implements Callable<Integer> {
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
-        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : p.tissue().t1Ms();
-        FitSettings settings = new FitSettings(p, t1, t2MinMs, t2MaxMs, b1Min, b1Max, true, Double.NaN,
-                monoOffset, monoSkipFirst);
+        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : Double.NaN;
+        FitOptions options = CliChecks.asOptions(() -> new FitOptions(model, t1, t2MinMs, t2MaxMs, b1Min, b1Max, true,
+                Double.NaN, false, monoOffset, monoSkipFirst, compareMono));
         String name = data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean volume = name.endsWith(".nii") || name.endsWith(".nii.gz");
         PrintWriter o = spec.commandLine().getOut();
@@ -133,34 +142,27 @@ public final class FitCommand implements Callable<Integer> {
                 throw new InputException("--mask and --b1-map apply to NIfTI volumes, not to the decay table " + data);
             }
             double sigma = tableSigma();
-            T2Fit.Factory f = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, out, force).run(data, format == Format.json, o, t1Source());
+            T2Fit.Factory f = new T2Fit.Factory(options.settings(p).withNoiseSigma(sigma), model, true);
+            new FitTableRun(f, p, out, force).run(data, format == Format.json, o, options.t1Source());
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
+        if (noiseSigma != null) {
+            options = noiseSigma.equals("auto") ? options.withNoise(Double.NaN, true)
+                    : options.withNoise(parseSigma(noiseSigma), false);
+        }
+        VolumeAnalysis analysis = VolumeAnalysis.fit(p, options);
         Map<String, Object> info = new LinkedHashMap<>();
         info.put("data", data.toString());
         info.put("protocol", p.name());
-        info.put("model", model.name().toLowerCase(Locale.ROOT));
-        info.put("echoes", train.echoes());
-        info.put("echo_spacing_ms", train.echoSpacingMs());
-        info.put("t1_ms", t1);
-        info.put("t1_source", t1Source());
-        info.put("t2_bounds_ms", List.of(t2MinMs, t2MaxMs));
-        info.put("b1_bounds", List.of(b1Min, settings.effectiveB1Max()));
-        info.put("b1_folded", settings.foldActive());
-        info.put("acquisition", Acquisitions.describe(p));
+        info.putAll(analysis.describe());
         info.put("b1_map", b1Map == null ? null : b1Map.toString());
+        info.put("b1_map_units", b1MapUnits.name());
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
-        new FitVolumeRun(settings, model, compareMono, noiseSigma, out, force, quiet)
-                .run(data, mask, b1Map, n, info, o, spec.commandLine().getErr());
+        new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask))
+                .run(data, mask, b1Map, b1MapUnits, n, info, o, spec.commandLine().getErr());
         return 0;
-    }
-
-    /** @return where the fixed T1 came from, as printed and written to JSON */
-    private String t1Source() {
-        return t1Ms != null ? "--t1-ms" : "protocol tissue";
     }
 
     /** Parses --noise-sigma for tables (no 'auto'). */

@@ -161,7 +161,7 @@ public final class SimulateCommand implements Callable<Integer> {
 
     private Map<String, Object> json(Protocol p, EchoTrain train) {
         Map<String, Object> root = Tables.protocolJson(p);
-        root.put("engine", p.cpmg().isPresent() ? "cpmg" : "general");
+        root.put("engine", Tables.engine(p));
         List<Map<String, Object>> echoes = new ArrayList<>();
         double[] times = train.timesMs();
         double[] re = train.re();

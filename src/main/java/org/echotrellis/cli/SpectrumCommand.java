@@ -16,6 +16,7 @@ import org.echotrellis.fit.spectrum.RefocusSearch;
 import org.echotrellis.fit.spectrum.Regularisation;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
 import org.echotrellis.fit.spectrum.T2Grid;
+import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
 import picocli.CommandLine.Command;
@@ -42,7 +43,7 @@ import picocli.CommandLine.Spec;
             "Defaults follow the protocol: T2 grid from the first echo time to",
             "4 x the last, 15 bins per decade; T1 of the protocol tissue; misfit",
             "regularisation letting the misfit grow by 1 + 1/(4 echoes); refocusing",
-            "angle bracketed every 10 deg at most from 0.3 x nominal to 180 deg (1.4 x",
+            "angle bracketed every 15 deg at most from 0.3 x nominal to 180 deg (1.4 x",
             "nominal with slice selection), then refined continuously; fraction window",
             "from the shortest grid T2 to 40 ms.",
             "", "Research tool, not a medical device."})
@@ -110,6 +111,10 @@ public final class SpectrumCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar.")
     boolean quiet;
 
+    @Option(names = "--outside-mask-value", paramLabel = "V", defaultValue = "nan",
+            description = "Value of image maps outside the mask: nan or a number such as 0 (default: ${DEFAULT-VALUE}).")
+    String outsideMask;
+
     @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
             description = "Table-input output on stdout: table, csv or json (default: ${DEFAULT-VALUE}).")
     Format format;
@@ -130,13 +135,14 @@ public final class SpectrumCommand implements Callable<Integer> {
                 "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
         Checks.require(image || b1Map == null, "--b1-map applies to image input only; DATA " + data + " is a table");
         Checks.require(b1Map == null || refocusDeg == null, "--b1-map and --refocus-deg exclude each other; give one");
-        BasisCache cache = BasisCache.build(p, options.t1Ms(), options.grid(), options.search());
-        Map<String, Object> settings = settings(p, train, options);
+        VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
+        BasisCache cache = analysis.basisCache().orElseThrow();
+        Map<String, Object> settings = settings(p, analysis);
         if (image) {
             Checks.require(out != null, "--out DIR is required for image input");
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
-            SpectrumVolumes.run(data, mask, b1Map, cache, options, n, out, force, settings,
+            SpectrumVolumes.run(data, mask, b1Map, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
                     new StderrProgressBar(spec.commandLine().getErr(), quiet), spec.commandLine().getOut());
         } else {
             Checks.require(mask == null, "--mask applies to image input only; DATA " + data + " is a table");
@@ -174,34 +180,17 @@ public final class SpectrumCommand implements Callable<Integer> {
                 misfitIncrease != null ? misfitIncrease : d.misfitIncrease(), search, ws);
     }
 
-    private Map<String, Object> settings(Protocol p, CpmgTrain train, SpectrumOptions o) {
+    private Map<String, Object> settings(Protocol p, VolumeAnalysis analysis) {
         Map<String, Object> s = new LinkedHashMap<>();
         s.put("command", "spectrum");
         s.put("data", data.toString());
         s.put("protocol", protocol.toString());
-        s.put("protocol_name", p.name());
-        s.put("echoes", train.echoes());
-        s.put("echo_spacing_ms", train.echoSpacingMs());
         s.put("mask", mask == null ? null : mask.toString());
-        s.put("t2_min_ms", o.grid().minMs());
-        s.put("t2_max_ms", o.grid().maxMs());
-        s.put("t2_bins", o.grid().bins());
-        s.put("t2_ms", o.grid().t2Ms());
-        s.put("t1_ms", o.t1Ms());
+        s.putAll(analysis.describe());
         s.put("t1_source", t1Ms != null ? "--t1-ms" : "protocol tissue");
-        s.put("regularisation", o.regularisation().label());
-        s.put("misfit_increase", o.misfitIncrease());
-        RefocusSearch r = o.search();
-        s.put("refocus", b1Map != null ? Map.of("from_b1_map", b1Map.toString())
-                : r.isFixed() ? Map.of("fixed_deg", r.loDeg())
-                : Map.of("lo_deg", r.loDeg(), "hi_deg", r.hiDeg(), "count", r.count(),
-                        "method", "coarse bracket, then continuous bounded minimisation of the misfit"));
-        s.put("acquisition", org.echotrellis.fit.Acquisitions.describe(p));
-        List<Map<String, Double>> ws = new ArrayList<>();
-        for (FractionWindow w : o.windows()) {
-            ws.add(Map.of("lo_ms", w.loMs(), "hi_ms", w.hiMs()));
+        if (b1Map != null) {
+            s.put("refocus", Map.of("from_b1_map", b1Map.toString()));
         }
-        s.put("fraction_windows", ws);
         return s;
     }
 }

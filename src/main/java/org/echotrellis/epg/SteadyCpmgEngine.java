@@ -148,7 +148,7 @@ public final class SteadyCpmgEngine {
         double lastFlip = Double.NaN;
         for (int p = 1; p <= n; p++) {
             int bound = odd ? Math.min(2 * p - 1, 2 * (n - p) + 1) : Math.min(2 * p - 2, 2 * (n - p));
-            half(base, -bound - 1, bound, dPre, dZ, kmax);
+            half(base, -bound - 1, bound, dPre, dZ, kmax, odd);
             base--;
             double flip = Math.toRadians(train.refocusFlipDeg(p - 1)) * train.refocusSign(p - 1);
             if (flip != lastFlip) {
@@ -167,7 +167,7 @@ public final class SteadyCpmgEngine {
             } else {
                 mixEven(base, bound);
             }
-            half(base, -bound, bound, dPost, dZ, kmax);
+            half(base, -bound, bound, dPost, dZ, kmax, odd);
             base--;
             if (odd) {
                 int ib = base * nl;
@@ -181,17 +181,18 @@ public final class SteadyCpmgEngine {
         }
     }
 
-    private void half(int base, int lo, int hi, double[] d, double[] dZ, int kmax) {
+    /** Relaxation and diffusion over a half echo spacing; only the family's parity is touched. */
+    private void half(int base, int lo, int hi, double[] d, double[] dZ, int kmax, boolean odd) {
         final int nl = lanes;
         final int off = kmax;
-        for (int k = lo; k <= hi; k++) {
+        for (int k = lo; k <= hi; k += 2) {
             double g = d[k + off];
             int o = (base + k) * nl;
             for (int l = 0; l < nl; l++) {
                 f[o + l] *= e2h[l] * g;
             }
         }
-        for (int k = 1; k <= hi; k++) {
+        for (int k = odd ? 1 : 2; k <= hi; k += 2) {
             double g = dZ[k];
             int o = k * nl;
             for (int l = 0; l < nl; l++) {

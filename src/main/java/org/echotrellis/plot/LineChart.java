@@ -40,6 +40,8 @@ public final class LineChart {
     private boolean logX;
     private Double yMin;
     private Double yMax;
+    private Double xMin;
+    private Double xMax;
 
     private LineChart(String title, String xLabel, String yLabel) {
         this.title = title;
@@ -90,6 +92,13 @@ public final class LineChart {
         return this;
     }
 
+    /** Fixes the x range (linear x axis only). */
+    public LineChart xRange(double min, double max) {
+        this.xMin = min;
+        this.xMax = max;
+        return this;
+    }
+
     /** @return the styled chart */
     public JFreeChart build() {
         DefaultXYDataset data = new DefaultXYDataset();
@@ -126,6 +135,9 @@ public final class LineChart {
         } else {
             NumberAxis x = new NumberAxis(xLabel);
             x.setAutoRangeIncludesZero(true);
+            if (xMin != null) {
+                x.setRange(xMin, xMax);
+            }
             plot = new XYPlot(data, x, y, r);
         }
         plot.setOrientation(PlotOrientation.VERTICAL);

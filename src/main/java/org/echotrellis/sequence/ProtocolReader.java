@@ -7,7 +7,6 @@ import com.fasterxml.jackson.core.StreamReadConstraints;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
@@ -60,28 +59,7 @@ public final class ProtocolReader {
      * @throws InputException for any problem, with file:line:column where known
      */
     public static Protocol read(Path file) {
-        String name = file.toString();
-        String lower = name.toLowerCase(Locale.ROOT);
-        boolean yaml = lower.endsWith(".yaml") || lower.endsWith(".yml");
-        if (!yaml && !lower.endsWith(".json")) {
-            throw new InputException(name + ": protocol files must end in .yaml, .yml or .json");
-        }
-        byte[] bytes;
-        try {
-            if (Files.isDirectory(file)) {
-                throw new InputException(name + ": is a directory, expected a protocol file");
-            }
-            if (!Files.isRegularFile(file)) {
-                throw new InputException(name + ": no such file");
-            }
-            if (Files.size(file) > MAX_FILE_BYTES) {
-                throw new InputException(name + ": file larger than " + MAX_FILE_BYTES + " bytes");
-            }
-            bytes = Files.readAllBytes(file);
-        } catch (IOException e) {
-            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
-        }
-        return parse(new String(bytes, StandardCharsets.UTF_8), name, yaml);
+        return ProtocolText.read(file).parse();
     }
 
     /**

@@ -95,10 +95,10 @@ final class TrainKernel {
         double rec = recover ? 1 - e1h : 0;
         for (int p = 1; p <= n; p++) {
             int bound = odd ? Math.min(2 * p - 1, 2 * (n - p) + 1) : Math.min(2 * p - 2, 2 * (n - p));
-            half(base, -bound - 1, bound, dPre, e2h, e1h, rec);
+            half(base, -bound - 1, bound, dPre, e2h, e1h, rec, odd);
             base--;
             mix(coef, 18 * kindOf[p - 1], base, odd ? 1 : 0, bound);
-            half(base, -bound, bound, dPost, e2h, e1h, rec);
+            half(base, -bound, bound, dPost, e2h, e1h, rec, odd);
             base--;
             if (odd) {
                 outRe[p - 1] += w * fr[base];
@@ -108,14 +108,15 @@ final class TrainKernel {
         return zr[0];
     }
 
-    private void half(int base, int lo, int hi, double[] d, double e2h, double e1h, double rec) {
-        for (int k = lo; k <= hi; k++) {
+    /** Relaxation and diffusion over a half echo spacing; only the family's parity is touched. */
+    private void half(int base, int lo, int hi, double[] d, double e2h, double e1h, double rec, boolean odd) {
+        for (int k = lo; k <= hi; k += 2) {
             double g = e2h * d[k + off];
             fr[base + k] *= g;
             fi[base + k] *= g;
         }
         int top = Math.min(hi, kmax);
-        for (int k = 1; k <= top; k++) {
+        for (int k = odd ? 1 : 2; k <= top; k += 2) {
             double g = e1h * dZ[k];
             zr[k] *= g;
             zi[k] *= g;

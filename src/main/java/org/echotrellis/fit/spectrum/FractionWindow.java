@@ -11,7 +11,7 @@ import org.echotrellis.Checks;
  * @param loMs lower edge in ms
  * @param hiMs upper edge in ms
  */
-public record FractionWindow(double loMs, double hiMs) {
+public record FractionWindow(double loMs, double hiMs) implements java.io.Serializable {
 
     /** Upper edge of the default short-T2 window in ms. */
     public static final double SHORT_T2_EDGE_MS = 40;

@@ -18,10 +18,10 @@ import org.echotrellis.InputException;
  * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 360
  * @param count number of equally spaced coarse angles (1 = fixed angle loDeg, else ≥ 3)
  */
-public record RefocusSearch(double loDeg, double hiDeg, int count) {
+public record RefocusSearch(double loDeg, double hiDeg, int count) implements java.io.Serializable {
 
     /** Largest spacing of the default coarse angles in degrees. */
-    public static final double COARSE_STEP_DEG = 10;
+    public static final double COARSE_STEP_DEG = 15;
 
     /** Validates the range. */
     public RefocusSearch {

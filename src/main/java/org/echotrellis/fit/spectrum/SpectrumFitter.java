@@ -55,7 +55,7 @@ public final class SpectrumFitter {
     /** Second coarse minima with χ² up to this fraction above the lowest are refined too. */
     static final double CLOSE = 0.1;
     /** Tolerance of the continuous angle search in degrees. */
-    static final double ANGLE_TOL_DEG = 0.05;
+    static final double ANGLE_TOL_DEG = 0.1;
     private static final int MAX_EVALUATIONS = 40;
 
     private final BoundedMinimum minimiser = new BoundedMinimum();
@@ -289,7 +289,7 @@ public final class SpectrumFitter {
         cache.basisAt(angleDeg, a);
         Gram.fill(a, m, n, g);
         Gram.project(a, m, n, data, dataOffset, b);
-        nnls.solve(g, b, n, 0, false, x0);
+        nnls.solve(g, b, n, 0, true, x0);  // warm start: the previous angle's solution is close
         lastAngle = angleDeg;
         return Gram.residual(a, m, n, x0, data, dataOffset, fitted);
     }

@@ -17,7 +17,8 @@ import org.echotrellis.sequence.Protocol;
  * @param windows        T2 windows whose fractions are reported (at least one)
  */
 public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularisation, double misfitIncrease,
-                              RefocusSearch search, List<FractionWindow> windows) {
+                              RefocusSearch search, List<FractionWindow> windows)
+        implements java.io.Serializable {
 
     /**
      * Our defaults for a protocol: grid from the echo times ({@link T2Grid#forEchoTimes}), T1 of the

@@ -29,7 +29,8 @@ import org.echotrellis.sequence.Protocol;
  * <p>Two sets are cached: the exact bases (and Gram matrices AᵀA) at the search angles, and a table
  * every {@value #TABLE_STEP_DEG}° over the search range, from which the basis at the refined angle
  * is interpolated linearly (error ≈ h²/8·∂²A/∂α² ≈ 1e-5 of the signal for h = 0.5°).
- * Memory: (count + table) · echoes · bins doubles.
+ * Memory: (count + table) · echoes · bins doubles, and for ideal pulses 2 · table · bins² more for
+ * the node Gram matrices that make the interpolated AᵀA cheap.
  */
 public final class BasisCache {
 
@@ -55,6 +56,9 @@ public final class BasisCache {
     private double referenceDeg;
     private boolean symmetric;
     private boolean cubic;
+    /** Linear tables only: AᵀA at every node and the symmetrised cross products A_sᵀA_{s+1}. */
+    private double[][] tableGram = new double[0][];
+    private double[][] tableCross = new double[0][];
 
     private BasisCache(int echoes, T2Grid grid, RefocusSearch search, double[][] searchBasis,
                        double[][] searchGram, double tableLoDeg, double tableStepDeg, double[][] table) {
@@ -145,6 +149,35 @@ public final class BasisCache {
         c.referenceDeg = ref;
         c.symmetric = source == null;
         c.cubic = source != null;
+        if (!c.cubic && table.length > 1) {
+            c.tableGram = new double[table.length][];
+            c.tableCross = new double[table.length - 1][];
+            final double[][] tb = table;
+            IntStream.range(0, table.length).parallel().forEach(k -> {
+                c.tableGram[k] = new double[n * n];
+                Gram.fill(tb[k], m, n, c.tableGram[k]);
+                if (k + 1 < tb.length) {
+                    double[] x = new double[n * n];
+                    for (int j = 0; j < n; j++) {
+                        for (int l = 0; l < n; l++) {
+                            double sum = 0;
+                            for (int i = 0; i < m; i++) {
+                                sum += tb[k][j * m + i] * tb[k + 1][l * m + i];
+                            }
+                            x[j * n + l] = sum;
+                        }
+                    }
+                    for (int j = 0; j < n; j++) {
+                        for (int l = 0; l < j; l++) {
+                            double sym = 0.5 * (x[j * n + l] + x[l * n + j]);
+                            x[j * n + l] = sym;
+                            x[l * n + j] = sym;
+                        }
+                    }
+                    c.tableCross[k] = x;
+                }
+            });
+        }
         return c;
     }
 
@@ -286,6 +319,36 @@ public final class BasisCache {
         double[] a1 = table[s + 1];
         for (int i = 0; i < len; i++) {
             out[i] = a0[i] + t * (a1[i] - a0[i]);
+        }
+    }
+
+    /**
+     * AᵀA of the basis at an angle, as {@link #basisAt} interpolates it: for the linear table exactly
+     * (1−t)²G_s + 2t(1−t)·sym(A_sᵀA_{s+1}) + t²G_{s+1} from the node products (3n² operations
+     * instead of m·n²/2), otherwise computed from the interpolated basis.
+     *
+     * @param angleDeg refocusing angle in degrees
+     * @param basis the basis of {@link #basisAt} at that angle
+     * @param out n×n; overwritten
+     */
+    void gramAt(double angleDeg, double[] basis, double[] out) {
+        int n = grid.bins();
+        if (tableGram.length == 0) {
+            Gram.fill(basis, echoes, n, out);
+            return;
+        }
+        double u = (angleDeg - tableLoDeg) / tableStepDeg;
+        u = Math.max(0, Math.min(table.length - 1, u));
+        int s = Math.min(table.length - 2, (int) u);
+        double t = u - s;
+        double w0 = (1 - t) * (1 - t);
+        double w1 = 2 * t * (1 - t);
+        double w2 = t * t;
+        double[] g0 = tableGram[s];
+        double[] c = tableCross[s];
+        double[] g1 = tableGram[s + 1];
+        for (int i = 0; i < n * n; i++) {
+            out[i] = w0 * g0[i] + w1 * c[i] + w2 * g1[i];
         }
     }
 

@@ -191,7 +191,7 @@ public final class SpectrumFitter {
                 gram = cache.searchGram(0);
             } else {
                 cache.basisAt(angle, a);
-                Gram.fill(a, m, n, g);
+                cache.gramAt(angle, a, g);
                 lastAngle = angle;
                 basis = a;
                 gram = g;
@@ -287,7 +287,7 @@ public final class SpectrumFitter {
     /** Unregularised misfit at an angle; leaves the interpolated basis and its Gram matrix in a and g. */
     private double chi2At(double angleDeg) {
         cache.basisAt(angleDeg, a);
-        Gram.fill(a, m, n, g);
+        cache.gramAt(angleDeg, a, g);
         Gram.project(a, m, n, data, dataOffset, b);
         nnls.solve(g, b, n, 0, true, x0);  // warm start: the previous angle's solution is close
         lastAngle = angleDeg;

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.design.DesignJob;
 import org.echotrellis.design.DesignProblem;
 import org.echotrellis.design.DesignReport;
@@ -113,7 +114,8 @@ public final class DesignCommand implements Callable<Integer> {
     Double excitationPulseMs;
 
     @Option(names = "--knots", paramLabel = "K", defaultValue = "6",
-            description = "Spline knots of the schedule for --objective (default: ${DEFAULT-VALUE}).")
+            description = "Spline knots of the schedule for --objective, 2 to 32; fewer when the objective "
+                    + "spans fewer echoes (default: ${DEFAULT-VALUE}).")
     int knots;
 
     @Option(names = "--max-evaluations", paramLabel = "N", defaultValue = "3000",
@@ -166,17 +168,40 @@ public final class DesignCommand implements Callable<Integer> {
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException(protocol
                 + ": design needs a CPMG echo train (train: shorthand or CPMG-phased event list)"));
         Tissue tissue = designTissue == null ? p.tissue() : TissuePresets.get(designTissue);
+        if (designTissue == null && ProtocolReader.tissueAssumed(p)) {
+            spec.commandLine().getErr().println("note: " + protocol + " has no tissue section; designing for T1 "
+                    + Tables.num(tissue.t1Ms()) + " ms, T2 " + Tables.num(tissue.t2Ms()) + " ms (add tissue: or give --design-tissue)");
+        }
         String tissueName = tissue.name() == null || tissue.name().isEmpty() ? "design tissue" : tissue.name();
         DesignProblem problem = new DesignProblem(tissueName, train.echoes(), train.echoSpacingMs(),
                 train.excitationFlipDeg(), tissue.t1Ms(), tissue.t2Ms(), p.b1Scale(), minFlipDeg, maxFlipDeg);
+        checkTiming(train);
         ExposureLimits limits = new ExposureLimits(sarBudget,
                 b1rmsLimitUt == null ? Double.POSITIVE_INFINITY : Checks.positive("--b1rms-limit-ut", b1rmsLimitUt, null));
         RfExposure rf = rf(p);
         SarReference reference = reference(p, train, rf);
         List<Tissue> compare = compareTissues(tissueName);
-        if (out != null) {
-            DesignOutputs.checkWritable(out, force);
+        try (OutputSet set = out == null ? null : DesignOutputs.open(out, force, inputs())) {
+            return run(p, problem, limits, rf, reference, compare, set);
         }
+    }
+
+    /** Input files of this run, never written over. */
+    private List<Path> inputs() {
+        List<Path> in = new ArrayList<>(java.util.Arrays.asList(protocol, referenceProtocol));
+        if (goal.target != null && goal.target.startsWith("list:")) {
+            in.add(Path.of(goal.target.substring(5)));
+        }
+        for (String shape : java.util.Arrays.asList(pulse, excitationPulse)) {
+            if (shape != null && !shape.contains(":")) {
+                in.add(Path.of(shape));
+            }
+        }
+        return in;
+    }
+
+    private int run(Protocol p, DesignProblem problem, ExposureLimits limits, RfExposure rf, SarReference reference,
+            List<Tissue> compare, OutputSet set) {
         PrintWriter err = spec.commandLine().getErr();
         DesignReport report;
         if (goal.target != null) {
@@ -196,12 +221,29 @@ public final class DesignCommand implements Callable<Integer> {
         if (out != null) {
             String protocolName = name != null ? name : p.name() + "-designed";
             DesignOutputs.write(report, out, protocolName, force);
+            set.commit();
             if (!quiet) {
                 err.println("design: wrote " + out.resolve(DesignOutputs.SCHEDULE_FILE) + ", design.json and plots");
                 err.flush();
             }
         }
         return 0;
+    }
+
+    /** TR must hold the trains played in it; the knot count follows one stated rule. */
+    private void checkTiming(CpmgTrain train) {
+        double trainMs = train.echoes() * train.echoSpacingMs();
+        if (trMs != null && Double.isFinite(trMs) && trMs < slices * trainMs) {
+            throw new InputException(String.format(java.util.Locale.ROOT, "--tr-ms %s is shorter than the %s ms of echo "
+                    + "trains it must hold (%d slice(s) x %d echoes x %s ms echo spacing); give a TR of at least %s ms",
+                    Tables.num(trMs), Tables.num(slices * trainMs), slices, train.echoes(),
+                    Tables.num(train.echoSpacingMs()), Tables.num(slices * trainMs)));
+        }
+        if (goal.objective != null) {
+            Checks.inRange("--knots", knots, 2, 32, "fewer are used when the objective spans fewer echoes");
+        } else if (spec.commandLine().getParseResult().hasMatchedOption("--knots")) {
+            throw new InputException("--knots shapes the --objective schedule; --target prescribes every echo");
+        }
     }
 
     /**

@@ -128,13 +128,16 @@ public final class SimulateCommand implements Callable<Integer> {
      */
     private void refuseIgnoredOptions() {
         if (sweeps.isEmpty()) {
+            if (threads != null) {
+                throw new InputException("--threads " + threads + " applies to --sweep grids; a single train runs on one thread");
+            }
             if (out != null) {
                 throw new InputException("--out " + out + ": --out writes the --sweep CSV; a single train goes to "
                         + "stdout (redirect it) and its plot to --plot");
             }
             if (plot != null) {
                 ChartFiles.isSvg(plot);
-                AtomicFiles.checkWritable(plot, force);
+                AtomicFiles.checkWritable(plot, force, List.of(input.file));
             } else if (!plotB1.isEmpty() || !plotTissues.isEmpty()) {
                 throw new InputException((plotB1.isEmpty() ? "--plot-tissue" : "--plot-b1")
                         + " adds curves to the --plot chart; give --plot PATH.png or PATH.svg too");
@@ -150,6 +153,9 @@ public final class SimulateCommand implements Callable<Integer> {
                 }
             }
             return;
+        }
+        if (out != null) {
+            AtomicFiles.checkWritable(out, force, List.of(input.file));
         }
         CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
         for (String option : List.of("--format", "--plot", "--plot-b1", "--plot-tissue")) {

@@ -75,4 +75,22 @@ final class Tables {
     private static String csv(String s) {
         return org.echotrellis.io.Csv.field(s);
     }
+
+    /**
+     * Refuses a decay table whose first row held numbers: it was read as the header row, so the
+     * table looks one echo short (common mistake: a table saved without column names).
+     *
+     * @param t the table
+     */
+    static void requireHeaderRow(org.echotrellis.io.DecayTable t) {
+        for (String name : t.names()) {
+            try {
+                Double.parseDouble(name.strip());
+            } catch (NumberFormatException e) {
+                return;
+            }
+        }
+        throw new org.echotrellis.InputException(t.source() + ": the first row holds numbers, not column names; "
+                + "add a header row (echo-time column name, then one name per decay, e.g. te_ms,voxel1,voxel2)");
+    }
 }

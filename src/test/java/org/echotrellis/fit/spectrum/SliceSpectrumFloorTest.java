@@ -96,13 +96,13 @@ class SliceSpectrumFloorTest {
                 nnls.solve(g, b, n, 0, false, x);
                 dense = Math.min(dense, Gram.residual(a, m, n, x, y, 0, fit));
             }
-            // noise-free: both misfits are near 0, so allow 1e-9 of the signal energy besides 0.1 %
-            // (a higher basin misfits by orders of magnitude more)
+            // noise-free: both misfits are near 0, so allow 1e-8 of the signal energy besides 0.1 %
+            // (four orders below the noise misfit at SNR 300; a higher basin misfits far more)
             double energy = 0;
             for (double v : y) {
                 energy += v * v;
             }
-            assertTrue(f.chi2() <= dense * 1.001 + 1e-9 * energy, "B1 " + B1[j] + ": misfit " + f.chi2() + " at "
+            assertTrue(f.chi2() <= dense * 1.001 + 1e-8 * energy, "B1 " + B1[j] + ": misfit " + f.chi2() + " at "
                     + f.refocusDeg() + "°, dense-scan minimum " + dense);
         }
     }

@@ -13,8 +13,7 @@ import java.util.concurrent.Callable;
 import org.echotrellis.InputException;
 import org.echotrellis.fit.FitModel;
 import org.echotrellis.fit.spectrum.FractionWindow;
-import org.echotrellis.fit.spectrum.SpectrumOptions;
-import org.echotrellis.fit.spectrum.T2Grid;
+import org.echotrellis.fit.spectrum.SpectrumChoices;
 import org.echotrellis.fit.volume.BidsDerivatives;
 import org.echotrellis.fit.volume.FitOptions;
 import org.echotrellis.io.bids.BidsLayout;
@@ -86,7 +85,8 @@ public final class BidsCommand implements Callable<Integer> {
     @Option(names = "--model", paramLabel = "MODEL", defaultValue = "epg", description = "epg or mono (default: ${DEFAULT-VALUE}).")
     FitModel model;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 in ms (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "NaN",
+            description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
     double t1Ms;
 
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound of the fit (default: ${DEFAULT-VALUE}).")
@@ -95,11 +95,8 @@ public final class BidsCommand implements Callable<Integer> {
     @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "5000", description = "Upper T2 bound of the fit (default: ${DEFAULT-VALUE}).")
     double t2MaxMs;
 
-    @Option(names = "--t2-bins", paramLabel = "N", defaultValue = "40", description = "Spectrum: log-spaced T2 bins, 10-2000 ms (default: ${DEFAULT-VALUE}).")
-    int t2Bins;
-
-    @Option(names = "--fraction-window-ms", paramLabel = "LO:HI", defaultValue = "10:40",
-            description = "Spectrum: T2 window of the MWFmap (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--fraction-window-ms", paramLabel = "LO:HI",
+            description = "Spectrum: T2 window of the MWFmap (default: the spectrum command's short-T2 window for each collection's protocol).")
     String window;
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
@@ -130,9 +127,9 @@ public final class BidsCommand implements Callable<Integer> {
         Optional<FitOptions> fit = analysis == Analysis.spectrum ? Optional.empty()
                 : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(t1Ms)
                         .withT2BoundsMs(t2MinMs, t2MaxMs)));
-        Optional<SpectrumOptions> spectrum = analysis == Analysis.fit ? Optional.empty()
-                : Optional.of(SpectrumOptions.DEFAULT.withGrid(new T2Grid(10, 2000, t2Bins)).withT1Ms(t1Ms)
-                        .withWindows(List.of(FractionWindow.parse(window))));
+        Optional<SpectrumChoices> spectrum = analysis == Analysis.fit ? Optional.empty()
+                : Optional.of(new SpectrumChoices(t1Ms,
+                        window == null ? List.of() : List.of(FractionWindow.parse(window))));
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
         List<MeseCollection> found = BidsLayout.find(bidsDir, participants, sessions);
         PrintWriter out = spec.commandLine().getOut();

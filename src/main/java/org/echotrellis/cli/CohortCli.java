@@ -10,7 +10,7 @@ import org.echotrellis.cohort.CohortJob;
 import org.echotrellis.cohort.CohortRequest;
 import org.echotrellis.cohort.CohortResult;
 import org.echotrellis.cohort.CohortSpark;
-import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.spectrum.SpectrumChoices;
 import org.echotrellis.fit.volume.FitOptions;
 import org.echotrellis.sequence.ProtocolText;
 
@@ -31,7 +31,8 @@ final class CohortCli {
         }
         FitOptions fit = FitOptions.DEFAULT.withT1Ms(c.t1Ms).withT2BoundsMs(c.t2MinMs, c.t2MaxMs)
                 .withB1Bounds(c.b1Min, c.b1Max);
-        SpectrumOptions spectrum = SpectrumOptions.DEFAULT.withT1Ms(c.t1Ms);
+        // a cohort's protocols are read per subject: each takes its own spectrum defaults
+        SpectrumChoices spectrum = new SpectrumChoices(c.t1Ms, List.of());
         ProtocolText protocol = c.protocol == null ? null : ProtocolText.read(c.protocol);
         if (protocol != null) {
             protocol.parse();

@@ -75,7 +75,8 @@ public final class CohortCommand implements Callable<Integer> {
                     + "with the sidecars' echo count and spacing.")
     java.nio.file.Path protocol;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 in ms (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "NaN",
+            description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
     double t1Ms;
 
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "fit: lower T2 bound (default: ${DEFAULT-VALUE}).")

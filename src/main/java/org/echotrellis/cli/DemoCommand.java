@@ -24,6 +24,7 @@ public final class DemoCommand implements Callable<Integer> {
             new PathwayDemo(),
             new FitDemo(),
             new SpectrumDemo(),
+            new SliceDemo(),
             new DesignDemo(),
             new ImageDemo());
 

@@ -35,16 +35,20 @@ import picocli.CommandLine.Spec;
             "      --format json",
             "  echotrellis fit series.nii.gz --protocol sequences/knee-t2-16.yaml \\",
             "      --mask mask.nii.gz --out t2maps --compare-mono",
-            "  echotrellis fit series.nii.gz --protocol p.yaml --mask m.nii \\",
-            "      --slice-profile sinc:4 --noise-sigma auto",
+            "  echotrellis fit series.nii.gz --protocol sequences/brain-mwi-32.yaml \\",
+            "      --mask m.nii --noise-sigma auto",
+            "",
+            "The acquisition (pulse shapes, slice selection, repetition time, crushers,",
+            "diffusion) is read from the protocol; T1 is the protocol tissue's unless",
+            "--t1-ms is given.",
             "",
             "Volumes: t2_ms, t2_se_ms, b1_scale, b1_se, amplitude, residual_rms, status",
             "(and mono_t2_ms) as .nii.gz maps, PNG previews and summary.json in --out.",
             "Status: 0 outside mask, 1 ok, 2 hit bound, 3 low signal, 4 invalid input,",
             "5 not converged.",
             "B1 is reported folded (refocusing angle <= 180 deg) for constant trains",
-            "without --slice-profile: B1 = 1 + x and 1 - x give the same magnitude",
-            "train. Near B1 = 1 the B1 estimate is weak; see b1_se."})
+            "without slice selection: B1 = 1 + x and 1 - x give the same magnitude",
+            "train. b1_se is '-' (null) where the data do not determine B1."})
 public final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
@@ -78,24 +82,12 @@ public final class FitCommand implements Callable<Integer> {
             description = "Value of the maps outside the mask: nan or a number such as 0 (default: ${DEFAULT-VALUE}).")
     String outsideMask;
 
-    @Option(names = "--slice-profile", paramLabel = "P", defaultValue = "none",
-            description = "none, sinc:TBW, gauss:TBW or a pulse-envelope file (one amplitude per line); Bloch-simulated (default: ${DEFAULT-VALUE}).")
-    String sliceProfile;
-
-    @Option(names = "--slice-positions", paramLabel = "N", defaultValue = "16",
-            description = "Positions across the half slice for --slice-profile (default: ${DEFAULT-VALUE}).")
-    int slicePositions;
-
-    @Option(names = "--refocus-slice-ratio", paramLabel = "R", defaultValue = "1.0",
-            description = "Refocusing-to-excitation slice thickness ratio (default: ${DEFAULT-VALUE}).")
-    double refocusRatio;
-
     @Option(names = "--noise-sigma", paramLabel = "S",
             description = "Channel noise sigma (signal units) for the Rician mean model, or 'auto' (volumes: from outside the mask).")
     String noiseSigma;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 in ms (default: ${DEFAULT-VALUE}).")
-    double t1Ms;
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Fixed T1 in ms (default: the protocol tissue's T1).")
+    Double t1Ms;
 
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound (default: ${DEFAULT-VALUE}).")
     double t2MinMs;
@@ -149,8 +141,9 @@ public final class FitCommand implements Callable<Integer> {
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
-        FitOptions options = CliChecks.asOptions(() -> new FitOptions(model, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, true,
-                Double.NaN, false, sliceProfile, slicePositions, refocusRatio, monoOffset, monoSkipFirst, compareMono));
+        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : Double.NaN;
+        FitOptions options = CliChecks.asOptions(() -> new FitOptions(model, t1, t2MinMs, t2MaxMs, b1Min, b1Max, true,
+                Double.NaN, false, monoOffset, monoSkipFirst, compareMono));
         String name = data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean volume = name.endsWith(".nii") || name.endsWith(".nii.gz");
         PrintWriter o = spec.commandLine().getOut();
@@ -160,9 +153,9 @@ public final class FitCommand implements Callable<Integer> {
                 throw new InputException("--mask and --b1-map apply to NIfTI volumes, not to the decay table " + data);
             }
             double sigma = tableSigma();
-            T2Fit.Factory f = new T2Fit.Factory(options.settings(train).withNoiseSigma(sigma), model, true);
+            T2Fit.Factory f = new T2Fit.Factory(options.settings(p).withNoiseSigma(sigma), model, true);
             new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o,
-                    CliChecks.provenance(spec, protocol, data), report);
+                    options.t1Source(), CliChecks.provenance(spec, protocol, data), report);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);

@@ -50,7 +50,8 @@ final class FitTableRun {
         this.inputs = inputs;
     }
 
-    void run(Path csv, boolean json, PrintWriter o, Map<String, Object> provenance, ReportOption report) {
+    void run(Path csv, boolean json, PrintWriter o, String t1Source, Map<String, Object> provenance,
+             ReportOption report) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
@@ -88,11 +89,14 @@ final class FitTableRun {
         }
         if (json) {
             Map<String, Object> root = new LinkedHashMap<>();
+            root.put("t1_ms", factory.settings().t1Ms());
+            root.put("t1_source", t1Source);
             root.put("fits", rows);
             root.put("provenance", provenance);
             o.print(Json.write(root));
         } else {
             o.print(table(rows));
+            o.printf(Locale.ROOT, "T1 fixed at %s ms (%s)%n", fmt(factory.settings().t1Ms(), 0).replace("Infinity", "inf"), t1Source);
         }
         o.flush();
         if (!plotFiles.isEmpty()) {

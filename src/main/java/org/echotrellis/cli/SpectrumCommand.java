@@ -39,6 +39,13 @@ import picocli.CommandLine.Spec;
             "      --format json",
             "  echotrellis spectrum brain.nii.gz --protocol sequences/brain-mwi-32.yaml \\",
             "      --mask brain_mask.nii.gz --fraction-window-ms 10:40 --out mwf",
+            "",
+            "Defaults follow the protocol: T2 grid from the first echo time to",
+            "4 x the last, 15 bins per decade; T1 of the protocol tissue; misfit",
+            "regularisation letting the misfit grow by 1 + 1/(4 echoes); refocusing",
+            "angle bracketed every 15 deg at most from 0.3 x nominal to 180 deg (1.4 x",
+            "nominal with slice selection), then refined continuously; fraction window",
+            "from the shortest grid T2 to 40 ms.",
             "", "Research tool, not a medical device."})
 public final class SpectrumCommand implements Callable<Integer> {
     @Mixin
@@ -60,35 +67,39 @@ public final class SpectrumCommand implements Callable<Integer> {
     @Option(names = "--mask", paramLabel = "FILE", description = "3-D mask for image input (0 = skip).")
     Path mask;
 
-    @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "10", description = "Shortest T2 of the grid (default: ${DEFAULT-VALUE}).")
-    double t2MinMs;
+    @Option(names = "--t2-min-ms", paramLabel = "MS", description = "Shortest T2 of the grid (default: the first echo time).")
+    Double t2MinMs;
 
-    @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "2000", description = "Longest T2 of the grid (default: ${DEFAULT-VALUE}).")
-    double t2MaxMs;
+    @Option(names = "--t2-max-ms", paramLabel = "MS", description = "Longest T2 of the grid (default: 4 x last echo time).")
+    Double t2MaxMs;
 
-    @Option(names = "--t2-bins", paramLabel = "N", defaultValue = "40", description = "Log-spaced grid points (default: ${DEFAULT-VALUE}).")
-    int t2Bins;
+    @Option(names = "--t2-bins", paramLabel = "N", description = "Log-spaced grid points (default: 15 per decade).")
+    Integer t2Bins;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 of the basis (default: ${DEFAULT-VALUE}).")
-    double t1Ms;
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Fixed T1 of the basis (default: the protocol tissue's T1).")
+    Double t1Ms;
 
-    @Option(names = "--regularisation", paramLabel = "METHOD", defaultValue = "chi2",
-            description = "none, chi2 (misfit rises by --misfit-increase) or gcv (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--regularisation", paramLabel = "METHOD", defaultValue = "misfit",
+            description = "misfit (the misfit grows by --misfit-increase), cross-validation or none (default: ${DEFAULT-VALUE}).")
     String regularisation;
 
-    @Option(names = "--misfit-increase", paramLabel = "FACTOR", defaultValue = "1.02",
-            description = "chi2 target: regularised misfit / unregularised misfit (default: ${DEFAULT-VALUE}).")
-    double misfitIncrease;
+    @Option(names = "--misfit-increase", paramLabel = "FACTOR",
+            description = "misfit target: regularised / unregularised misfit (default: 1 + 1/(4 echoes)).")
+    Double misfitIncrease;
 
     @Option(names = "--refocus-search-deg", paramLabel = "LO:HI:COUNT",
-            description = "Refocusing angles searched per decay (default: 50:180:8).")
+            description = "Coarse refocusing angles bracketing the continuous search (default: from the protocol, see below).")
     String refocusSearch;
 
     @Option(names = "--refocus-deg", paramLabel = "DEG", description = "Use this refocusing angle instead of searching.")
     Double refocusDeg;
 
+    @Option(names = "--b1-map", paramLabel = "FILE",
+            description = "3-D B1 map (same grid, flip-angle scale) for image input: fixes each voxel's refocusing angle, no search.")
+    Path b1Map;
+
     @Option(names = "--fraction-window-ms", paramLabel = "LO:HI",
-            description = "T2 window whose fraction is reported (repeatable; default: 10:40).")
+            description = "T2 window whose fraction is reported (repeatable; default: shortest grid T2 to 40 ms).")
     List<String> windows = new ArrayList<>();
 
     @Option(names = "--out", paramLabel = "DIR", description = "Output directory (required for image input).")
@@ -120,12 +131,14 @@ public final class SpectrumCommand implements Callable<Integer> {
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": not a CPMG echo train (constant echo spacing, refocusing phase = excitation phase ± 90°); "
                 + "spectrum fitting needs one"));
-        SpectrumOptions options = options();
+        SpectrumOptions options = options(p);
         report.begin(spec, force);
         String name = data.getFileName() == null ? "" : data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean image = name.endsWith(".nii") || name.endsWith(".nii.gz");
         Checks.require(image || name.endsWith(".csv"),
                 "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
+        Checks.require(image || b1Map == null, "--b1-map applies to image input only; DATA " + data + " is a table");
+        Checks.require(b1Map == null || refocusDeg == null, "--b1-map and --refocus-deg exclude each other; give one");
         refuseIgnored(image, options);
         VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
         BasisCache cache = analysis.basisCache().orElseThrow();
@@ -134,9 +147,10 @@ public final class SpectrumCommand implements Callable<Integer> {
             Checks.require(out != null, "--out DIR is required for image input");
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
-            var res = SpectrumVolumes.run(data, mask, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
+            var res = SpectrumVolumes.run(data, mask, b1Map, analysis, n, out, force,
+                    CliChecks.outsideMaskValue(outsideMask), settings,
                     new StderrProgressBar(spec.commandLine().getErr(), quiet), spec.commandLine().getOut(),
-                    java.util.Arrays.asList(data, mask, protocol)).result();
+                    java.util.Arrays.asList(data, mask, protocol, b1Map)).result();
             report.settings(settings);
             report.write("spectrum: " + data.getFileName(), force, r -> CommandReports.spectrumVolume(r, res, options));
         } else {
@@ -164,21 +178,33 @@ public final class SpectrumCommand implements Callable<Integer> {
         }
     }
 
-    /** @return the fit options from the command line (validated; errors name the option) */
-    SpectrumOptions options() {
+    /**
+     * @param p the protocol, source of the defaults
+     * @return the fit options from the command line over the protocol's defaults (validated; errors name the option)
+     */
+    SpectrumOptions options(Protocol p) {
         Checks.require(refocusDeg == null || refocusSearch == null,
                 "--refocus-deg and --refocus-search-deg exclude each other; give one");
+        SpectrumOptions d = SpectrumOptions.defaults(p);
+        double lo = t2MinMs != null ? t2MinMs : d.grid().minMs();
+        double hi = t2MaxMs != null ? t2MaxMs : d.grid().maxMs();
+        Checks.positive("--t2-min-ms", lo, null);
+        Checks.require(hi > lo, "--t2-max-ms must be > --t2-min-ms (" + lo + " ms), got " + hi);
+        int bins = t2Bins != null ? t2Bins
+                : Math.min(T2Grid.MAX_BINS, (int) Math.ceil(T2Grid.BINS_PER_DECADE * Math.log10(hi / lo) - 1e-9) + 1);
+        T2Grid grid = new T2Grid(lo, hi, bins);
         RefocusSearch search = refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
-                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : RefocusSearch.DEFAULT;
+                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : d.search();
         List<FractionWindow> ws = new ArrayList<>();
         for (String w : windows) {
             ws.add(FractionWindow.parse(w));
         }
         if (ws.isEmpty()) {
-            ws.add(FractionWindow.DEFAULT);
+            ws.add(FractionWindow.shortT2(grid));
         }
-        return new SpectrumOptions(new T2Grid(t2MinMs, t2MaxMs, t2Bins), t1Ms, Regularisation.parse(regularisation),
-                misfitIncrease, search, ws);
+        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : d.t1Ms();
+        return new SpectrumOptions(grid, t1, Regularisation.parse(regularisation),
+                misfitIncrease != null ? misfitIncrease : d.misfitIncrease(), search, ws);
     }
 
     private Map<String, Object> settings(Protocol p, VolumeAnalysis analysis) {
@@ -188,7 +214,11 @@ public final class SpectrumCommand implements Callable<Integer> {
         s.put("protocol", protocol.toString());
         s.put("mask", mask == null ? null : mask.toString());
         s.putAll(analysis.describe());
-        s.put("provenance", CliChecks.provenance(spec, protocol, data, mask));
+        s.put("provenance", CliChecks.provenance(spec, protocol, data, mask, b1Map));
+        s.put("t1_source", t1Ms != null ? "--t1-ms" : "protocol tissue");
+        if (b1Map != null) {
+            s.put("refocus", Map.of("from_b1_map", b1Map.toString()));
+        }
         return s;
     }
 }

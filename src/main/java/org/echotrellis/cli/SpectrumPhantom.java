@@ -1,17 +1,21 @@
 package org.echotrellis.cli;
 
 import java.util.SplittableRandom;
-import org.echotrellis.epg.CpmgEngine;
-import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.Simulator;
 
 /**
  * An invented brain-like slice for the spectrum demo: an elliptical "brain" with a cortical rim of
  * "grey matter", "white matter" carrying a short-T2 pool (18 ms), a denser tract with more of it,
  * two "ventricles" of long-T2 fluid and two deep "grey-matter" nuclei; a smooth B1 fall-off towards
  * the edge (flip scale 0.98 at the centre to about 0.76 at the rim, all flips scaled); magnitude data
- * with Gaussian noise in both channels (Rician magnitude). All values are our own scenario.
+ * with Gaussian noise in both channels (Rician magnitude). The pools' trains are the protocol's whole
+ * acquisition (so a slice-selective protocol gives 2-D data). All values are our own scenario.
  */
 final class SpectrumPhantom {
+    /** T1 of the white-matter pools in ms (the basis T1 of the demo's fit). */
+    static final double T1_MS = 1000;
+
     /** Region codes. */
     static final int BACKGROUND = 0;
     static final int GREY = 1;
@@ -28,17 +32,16 @@ final class SpectrumPhantom {
     final double[] data;       // data[v·echoes + e]
     final double sigma;
 
-    SpectrumPhantom(int nx, int ny, CpmgTrain train, double snr, long seed) {
+    SpectrumPhantom(int nx, int ny, Protocol protocol, double snr, long seed) {
         this.nx = nx;
         this.ny = ny;
-        this.echoes = train.echoes();
+        this.echoes = protocol.echoCount();
         int n = nx * ny;
         region = new int[n];
         b1 = new double[n];
         shortFraction = new double[n];
         data = new double[n * echoes];
         sigma = 0.7 / snr;                          // SNR quoted for white-matter proton density 0.7
-        CpmgEngine engine = new CpmgEngine(1);
         SplittableRandom rnd = new SplittableRandom(seed);
         double[] sig = new double[echoes];
         for (int j = 0; j < ny; j++) {
@@ -51,7 +54,7 @@ final class SpectrumPhantom {
                 b1[v] = 0.98 - 0.2 * r * r + 0.02 * u;
                 java.util.Arrays.fill(sig, 0);
                 if (region[v] != BACKGROUND) {
-                    mix(engine, train, v, u, sig);
+                    mix(protocol, v, u, sig);
                 }
                 for (int e = 0; e < echoes; e++) {
                     double re = sig[e] + sigma * gauss(rnd);
@@ -82,7 +85,7 @@ final class SpectrumPhantom {
     }
 
     /** Pools per region: (proton density, short fraction, T2 short, T2 main, T1). */
-    private void mix(CpmgEngine engine, CpmgTrain train, int v, double u, double[] sig) {
+    private void mix(Protocol protocol, int v, double u, double[] sig) {
         double pd;
         double fShort;
         double t2Main;
@@ -94,8 +97,8 @@ final class SpectrumPhantom {
             default: pd = 0.70; fShort = 0.11 + 0.03 * u; t2Main = 75; t1 = 1000;
         }
         shortFraction[v] = fShort;
-        double[] main = engine.echoes(train, t1, t2Main, b1[v]);
-        double[] shortPool = fShort > 0 ? engine.echoes(train, 500, 18, b1[v]) : new double[echoes];
+        double[] main = Simulator.simulate(protocol, t1, t2Main, b1[v]).magnitudes();
+        double[] shortPool = fShort > 0 ? Simulator.simulate(protocol, 500, 18, b1[v]).magnitudes() : new double[echoes];
         for (int e = 0; e < echoes; e++) {
             sig[e] = pd * ((1 - fShort) * Math.abs(main[e]) + fShort * Math.abs(shortPool[e]));
         }

@@ -34,7 +34,7 @@ import org.echotrellis.plot.MapPreview;
 final class SpectrumVolumes {
     private SpectrumVolumes() { }
 
-    static VolumeMaps run(Path data, Path mask, VolumeAnalysis analysis, int threads, Path out, boolean force,
+    static VolumeMaps run(Path data, Path mask, Path b1Map, VolumeAnalysis analysis, int threads, Path out, boolean force,
                           float outsideMask, Map<String, Object> settings, ProgressReporter progress,
                           PrintWriter stdout, List<Path> inputs) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
@@ -44,9 +44,11 @@ final class SpectrumVolumes {
         NiftiHeader grid = Nifti.readHeader(data);  // headers first: nothing inflated before they agree
         VolumeJob.checkSeries(grid, data.toString(), analysis.train().echoes());
         Nifti.checkOnGrid(mask, grid, "--mask");
+        Nifti.checkOnGrid(b1Map, grid, "--b1-map");
         try (OutputSet set = OutputSet.open(out, force, inputs); NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
-            VolumeJob job = CliChecks.volumeJob(in, m, Optional.empty(), threads);
+            Optional<NiftiImage> b1 = b1Map == null ? Optional.empty() : Optional.of(Nifti.read(b1Map));
+            VolumeJob job = CliChecks.volumeJob(in, m, b1, threads);
             org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             set.plan(plannedFiles(analysis, o));
             VolumeMaps r = analysis.run(job, progress);
@@ -77,8 +79,31 @@ final class SpectrumVolumes {
         }
         Map<String, Object> s = new LinkedHashMap<>(settings);
         s.put("outputs", outputs(scalars));
-        RunSummary.write(out.resolve("summary.json"), r.result(), s, force);
+        org.echotrellis.io.AtomicFiles.writeString(out.resolve("summary.json"), summary(r.result(), s), force);
     }
+
+    /**
+     * summary.json with the status counts under the spectrum's own names: the shared status map's
+     * codes 2 and 5 mean "regularisation target not reached" and "NNLS iteration limit" here.
+     */
+    static String summary(VolumeResult r, Map<String, Object> settings) {
+        com.fasterxml.jackson.databind.node.ObjectNode root = RunSummary.build(r, settings);
+        com.fasterxml.jackson.databind.node.ObjectNode counts =
+                (com.fasterxml.jackson.databind.node.ObjectNode) root.get("status_counts");
+        com.fasterxml.jackson.databind.node.ObjectNode renamed = root.objectNode();
+        counts.fields().forEachRemaining(e -> renamed.set(STATUS_NAMES.getOrDefault(e.getKey(), e.getKey()), e.getValue()));
+        root.set("status_counts", renamed);
+        try {
+            return org.echotrellis.io.Json.MAPPER.writeValueAsString(root) + "\n";
+        } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** Shared status labels → spectrum meanings. */
+    static final Map<String, String> STATUS_NAMES = Map.of(
+            "hit_bound", "regularisation_target_not_reached",
+            "not_converged", "nnls_iteration_limit");
 
     /** Fails before any work if an output exists and --force is not given (same message as the writer). */
     /** The files a run writes, checked before any work. */
@@ -100,7 +125,8 @@ final class SpectrumVolumes {
             files.add(n + ".nii.gz");
         }
         files.add("status.nii.gz (0 outside mask, 1 ok, 2 regularisation target not reached, "
-                + "3 low signal (largest fitted echo < 10 noise SD), 4 invalid input, 5 NNLS iteration limit)");
+                + "3 low signal (largest fitted echo < 10 noise SD), 4 invalid input or B1 map value outside the "
+                + "refocusing range, 5 NNLS iteration limit)");
         return files;
     }
 

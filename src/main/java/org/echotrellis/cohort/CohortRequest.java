@@ -4,7 +4,7 @@ import java.io.Serializable;
 import java.util.List;
 
 import org.apache.hadoop.fs.Path;
-import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.spectrum.SpectrumChoices;
 import org.echotrellis.fit.volume.FitOptions;
 import org.echotrellis.sequence.ProtocolText;
 
@@ -25,7 +25,7 @@ import org.echotrellis.sequence.ProtocolText;
  * @param commandLine the command line, for the derivatives' provenance
  */
 public record CohortRequest(String bidsDir, String outputDir, List<String> participants, FitOptions fit,
-                            SpectrumOptions spectrum, ProtocolText protocol, String labels, boolean force,
+                            SpectrumChoices spectrum, ProtocolText protocol, String labels, boolean force,
                             int threadsPerTask, String commandLine) implements Serializable {
     private static final long serialVersionUID = 1L;
 

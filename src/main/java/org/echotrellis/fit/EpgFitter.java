@@ -7,7 +7,9 @@ import org.echotrellis.io.VoxelStatus;
  * "Transverse relaxometry with stimulated echo compensation", Magn Reson Med 64:1005, 2010):
  * the protocol's EPG train with free amplitude, T2 and B1 (or B1 fixed from a map), T1 fixed.
  *
- * <p>Steps: (1) start from the best atom of a coarse {@link StartDictionary}; (2) Levenberg–
+ * <p>Steps: (1) start from the best local maxima of a coarse {@link StartDictionary} — every
+ * candidate whose grid misfit is within a factor {@value #CLOSE} of the best is refined, the lowest
+ * final misfit wins (with slice profiles the misfit has a basin on each side of B1 = 1); (2) Levenberg–
  * Marquardt over (ln T2, B1) with the amplitude projected out (variable projection, Golub &amp;
  * Pereyra, SIAM J Numer Anal 10:413, 1973; for one linear parameter A = g·y/g·g and the exact
  * Jacobian of A·g is A ∂g + g (∂g·y − 2A g·∂g)/g·g), with analytic EPG derivatives. With an
@@ -17,7 +19,8 @@ import org.echotrellis.io.VoxelStatus;
  * noise σ, refine (A, ln T2, B1) on the Rician mean E[M](A·g, σ) ({@link Rician}), so late echoes
  * on the noise floor do not lengthen T2; (4) Cramér–Rao standard errors ({@link Covariance}) from
  * the amplitude-projected Jacobian and the residual variance (with a noise σ: the larger of σ² and
- * the residual variance).
+ * the residual variance). Where B1 is not identifiable (its standard error is infinite or exceeds
+ * half the width of the B1 bounds) the B1 standard error is NaN, reported as "not determined".
  *
  * <p>Allocation-free per decay after construction.
  */
@@ -43,7 +46,12 @@ final class EpgFitter {
     private final double[] g;
     private final double[] gT;
     private final double[] gB;
-    private final double[] start = new double[2];
+    /** Candidates with a grid misfit up to this factor times the best one are refined too. */
+    static final double CLOSE = 2.0;
+
+    private final double[] starts = new double[2 * StartDictionary.MAX_CANDIDATES];
+    private final double[] misfits = new double[StartDictionary.MAX_CANDIDATES];
+    private final int[] bestIdx = new int[StartDictionary.MAX_CANDIDATES];
     private final double[] scan;
     private final SmallLeastSquares lmFree;
     private final SmallLeastSquares lmFixed;
@@ -72,9 +80,13 @@ final class EpgFitter {
     private final double b1HiFit;
     private int lastIterations;
 
-    EpgFitter(FitSettings settings, StartDictionary dictionary) {
+    /** True when the train is not folded: a start on each side of the split B1 is always refined. */
+    private final boolean alwaysBoth;
+
+    EpgFitter(FitSettings settings, StartDictionary dictionary, TrainSurface surface) {
+        this.alwaysBoth = !settings.foldActive();
         this.settings = settings;
-        this.signal = new EpgSignal(settings);
+        this.signal = new EpgSignal(settings, surface);
         this.dictionary = dictionary;
         this.n = settings.train().echoes();
         scan = new double[dictionary.size()];
@@ -126,21 +138,43 @@ final class EpgFitter {
         y = data;
         off = offset;
         fixedB1 = Double.isNaN(b1Fixed) ? Double.NaN : foldFixed(b1Fixed);
-        dictionary.best(data, offset, fixedB1, scan, start);
+        int nc = dictionary.candidates(data, offset, fixedB1, scan, starts, misfits, bestIdx);
         boolean free = Double.isNaN(fixedB1);
         double cost;
         SmallLeastSquares lm;
         double lnT2;
         double b1;
         if (free) {
-            x2[0] = Math.log(start[0]);
-            x2[1] = toParam(start[1]);
             lm = lmFree;
-            cost = lm.solve(varPro, x2, lo2, hi2, MAX_ITERATIONS, STEP_TOL);
+            double bestCost = Double.POSITIVE_INFINITY;
+            double bestLn = Math.log(starts[0]);
+            double bestQ = toParam(starts[1]);
+            boolean lastIsBest = false;
+            for (int c = 0; c < nc; c++) {
+                if (c > 0 && !alwaysBoth && !(misfits[c] <= CLOSE * misfits[0])) {
+                    continue;
+                }
+                x2[0] = Math.log(starts[2 * c]);
+                x2[1] = toParam(starts[2 * c + 1]);
+                double cc = lm.solve(varPro, x2, lo2, hi2, MAX_ITERATIONS, STEP_TOL);
+                lastIsBest = cc < bestCost;
+                if (lastIsBest) {
+                    bestCost = cc;
+                    bestLn = x2[0];
+                    bestQ = x2[1];
+                }
+            }
+            if (!lastIsBest) {
+                // restore the solver's state (residuals, Jacobian) at the winning candidate
+                x2[0] = bestLn;
+                x2[1] = bestQ;
+                bestCost = lm.solve(varPro, x2, lo2, hi2, MAX_ITERATIONS, STEP_TOL);
+            }
+            cost = bestCost;
             lnT2 = x2[0];
             b1 = toB1(x2[1]);
         } else {
-            x1[0] = Math.log(start[0]);
+            x1[0] = Math.log(starts[0]);
             lm = lmFixed;
             cost = lm.solve(varPro, x1, lo1, hi1, MAX_ITERATIONS, STEP_TOL);
             lnT2 = x1[0];
@@ -182,6 +216,9 @@ final class EpgFitter {
             (free ? cov3 : cov2).standardErrors(lr.jacobian(), n, s2, modelNorm(lr.residuals()), se);
             seLnT2 = se[1];
             seB1 = free ? se[2] * Math.abs(dB1(x[2])) : Double.NaN;
+        }
+        if (!(seB1 < 0.5 * (b1HiFit - settings.b1Min()))) {
+            seB1 = Double.NaN;  // the data do not determine B1 within its bounds: no standard error
         }
         double t2 = Math.exp(lnT2);
         out[T2] = t2;

@@ -20,7 +20,7 @@ public final class T2Fit implements VoxelKernel {
 
     private T2Fit(Factory f) {
         this.factory = f;
-        this.epg = f.model == FitModel.EPG ? new EpgFitter(f.settings, f.dictionary) : null;
+        this.epg = f.model == FitModel.EPG ? new EpgFitter(f.settings, f.dictionary, f.surface) : null;
         this.mono = f.model == FitModel.MONO || f.compareMono ? new MonoFitter(f.settings) : null;
     }
 
@@ -70,7 +70,7 @@ public final class T2Fit implements VoxelKernel {
         java.util.Arrays.fill(epgCurve, Double.NaN);
         java.util.Arrays.fill(monoCurve, Double.NaN);
         if (epg != null && e.status().fitted()) {
-            EpgSignal sig = new EpgSignal(s);
+            EpgSignal sig = new EpgSignal(s, factory.surface);
             sig.evaluate(e.t2Ms(), e.b1Scale(), epgCurve, new double[n], new double[n]);
             for (int i = 0; i < n; i++) {
                 epgCurve[i] *= e.amplitude();
@@ -112,11 +112,15 @@ public final class T2Fit implements VoxelKernel {
         return s;
     }
 
-    /** Shared, thread-safe: settings, model and the precomputed start dictionary. */
+    /**
+     * Shared, thread-safe: settings, model, the model table of the acquisition (built once, for any
+     * acquisition other than the plain ideal-pulse CPMG train) and the precomputed start dictionary.
+     */
     public static final class Factory implements VoxelKernel.Factory {
         private final FitSettings settings;
         private final FitModel model;
         private final boolean compareMono;
+        private final TrainSurface surface;
         private final StartDictionary dictionary;
         private final List<String> outputs;
 
@@ -126,10 +130,21 @@ public final class T2Fit implements VoxelKernel {
          * @param compareMono also fit the mono-exponential model (EPG model only)
          */
         public Factory(FitSettings settings, FitModel model, boolean compareMono) {
+            this(settings, model, compareMono, !Acquisitions.plainCpmg(settings.protocol()));
+        }
+
+        /**
+         * @param settings fit settings
+         * @param model the model
+         * @param compareMono also fit the mono-exponential model (EPG model only)
+         * @param tabulate use the tabulated model even for a plain CPMG train
+         */
+        Factory(FitSettings settings, FitModel model, boolean compareMono, boolean tabulate) {
             this.settings = settings;
             this.model = model;
             this.compareMono = compareMono && model == FitModel.EPG;
-            this.dictionary = model == FitModel.EPG ? new StartDictionary(settings) : null;
+            this.surface = model == FitModel.EPG && tabulate ? surface(settings) : null;
+            this.dictionary = model == FitModel.EPG ? new StartDictionary(settings, surface) : null;
             List<String> o = new ArrayList<>();
             if (model == FitModel.EPG) {
                 o.addAll(List.of("t2_ms", "t2_se_ms", "b1_scale", "b1_se", "amplitude", "residual_rms"));
@@ -143,6 +158,32 @@ public final class T2Fit implements VoxelKernel {
                 }
             }
             this.outputs = List.copyOf(o);
+        }
+
+        /**
+         * The same run with another noise σ, sharing the model table and the start dictionary (both
+         * independent of σ).
+         *
+         * @param base the factory to share with
+         * @param noiseSigma channel noise σ, or NaN
+         */
+        public Factory(Factory base, double noiseSigma) {
+            this.settings = base.settings.withNoiseSigma(noiseSigma);
+            this.model = base.model;
+            this.compareMono = base.compareMono;
+            this.surface = base.surface;
+            this.dictionary = base.dictionary;
+            this.outputs = base.outputs;
+        }
+
+        private static TrainSurface surface(FitSettings s) {
+            return TrainSurface.build(new TrainSource(s.protocol(), s.t1Ms(), s.b1Max() + 0.1), s.t2MinMs(), s.t2MaxMs(), s.b1Min(),
+                    s.b1Max());
+        }
+
+        /** @return true if the model is the tabulated acquisition (not the exact per-evaluation engine) */
+        public boolean tabulated() {
+            return surface != null;
         }
 
         /** @return the settings */

@@ -146,8 +146,7 @@ class AdversarialInputsTest {
     @Test
     void unclearMessagesNowSayWhatIsWrong() throws Exception {
         Path table = Files.writeString(dir.resolve("t.csv"), table());
-        refused(CliRun.of("fit", table.toString(), "--protocol", KNEE, "--slice-profile", "sinc"), 2,
-                "--slice-profile sinc", "time-bandwidth product", "sinc:4");
+        // (the former --slice-profile case is gone with the option: the slice profile is the protocol's)
         Path threeD = image(dir.resolve("one.nii"), 5, 2, 2, 2);
         refused(CliRun.of("fit", threeD.toString(), "--protocol", KNEE, "--out", dir.resolve("o").toString()), 2,
                 threeD.toString(), "3-D image", "4-D series");

@@ -108,7 +108,7 @@ class BidsCommandTest {
         Path root = dataset();
         Path out = dir.resolve("derivatives");
         CliRun r = CliRun.of("bids", root.toString(), out.toString(), "participant", "--analysis", "both",
-                "--threads", "2", "--quiet", "--t2-bins", "30");
+                "--threads", "2", "--quiet");
         assertEquals(0, r.code(), r.err());
         JsonNode desc = Json.MAPPER.readTree(out.resolve("dataset_description.json").toFile());
         assertEquals("derivative", desc.get("DatasetType").asText());

@@ -50,7 +50,9 @@ class FitCommandTest {
     @Test
     void decayTableGivesJsonAndAPlot() throws IOException {
         Path out = dir.resolve("out");
-        CliRun r = CliRun.of("fit", csv().toString(), "--protocol", PROTOCOL, "--format", "json", "--out", out.toString());
+        // the decays were made with T1 1000 ms; the protocol's tissue has another T1, so it is given
+        CliRun r = CliRun.of("fit", csv().toString(), "--protocol", PROTOCOL, "--format", "json", "--out", out.toString(),
+                "--t1-ms", "1000");
         assertEquals(0, r.code(), r.err());
         JsonNode fits = Json.MAPPER.readTree(r.out()).get("fits");
         assertEquals(2, fits.size());
@@ -99,7 +101,7 @@ class FitCommandTest {
         Nifti.write(maskFile, NiftiHeader.create(NiftiDatatype.UINT8, nx, ny, nz), mask, false);
         Path out = dir.resolve("maps");
         CliRun r = CliRun.of("fit", series.toString(), "--protocol", PROTOCOL, "--mask", maskFile.toString(),
-                "--out", out.toString(), "--compare-mono", "--threads", "2", "--quiet");
+                "--out", out.toString(), "--compare-mono", "--threads", "2", "--quiet", "--t1-ms", "1000");
         assertEquals(0, r.code(), r.err());
         assertEquals("", r.err());
         NiftiImage t2 = Nifti.read(out.resolve("t2_ms.nii.gz"));
@@ -187,7 +189,7 @@ class FitCommandTest {
             {"fit", truncated.toString(), "--protocol", PROTOCOL, "--out", dir.resolve("b").toString()},
             {"fit", csv().toString(), "--protocol", PROTOCOL, "--noise-sigma", "auto"},
             {"fit", csv().toString(), "--protocol", PROTOCOL, "--noise-sigma", "-1"},
-            {"fit", csv().toString(), "--protocol", PROTOCOL, "--slice-profile", "sinc:x"},
+            {"fit", csv().toString(), "--protocol", PROTOCOL, "--t1-ms", "-5"},
             {"fit", csv().toString(), "--protocol", PROTOCOL, "--t2-min-ms", "50", "--t2-max-ms", "40"},
             {"fit", csv().toString(), "--protocol", "sequences/cp-phase-error-16.yaml"},
         };
@@ -213,6 +215,6 @@ class FitCommandTest {
         for (String line : r.out().split("\\R")) {
             assertTrue(line.length() <= 80, "help line longer than 80: " + line);
         }
-        assertTrue(r.out().contains("--slice-profile"));
+        assertTrue(r.out().contains("T1 is the protocol tissue's"), r.out());
     }
 }

@@ -65,10 +65,11 @@ class SpectrumCommandTest {
         assertEquals(2, spectra.size());
         JsonNode s = spectra.get(0);
         assertEquals("voxel_a", s.get("name").asText());
-        assertEquals(40, s.get("t2_ms").size());
-        assertEquals(40, s.get("amplitude").size());
-        assertEquals(10.0, s.get("t2_ms").get(0).asDouble(), 1e-12);
-        assertEquals(2000.0, s.get("t2_ms").get(39).asDouble(), 1e-9);
+        // default grid from the protocol: 10 ms (first echo) to 4 × 320 ms, 15 bins per decade → 33 bins
+        assertEquals(33, s.get("t2_ms").size());
+        assertEquals(33, s.get("amplitude").size());
+        assertEquals(10, s.get("t2_ms").get(0).asDouble(), 1e-12);
+        assertEquals(1280.0, s.get("t2_ms").get(32).asDouble(), 1e-9);
         // refocusing 160° simulated; refinement of Prasloski et al. 2012 should find it (±3°, issue criterion)
         assertEquals(160, s.get("refocus_deg").asDouble(), 3);
         assertTrue(s.get("chi2").asDouble() > 0);
@@ -91,13 +92,13 @@ class SpectrumCommandTest {
     void tableCsvAndText() throws Exception {
         Path t = table();
         CliRun c = CliRun.of("spectrum", t.toString(), "--protocol", PROTOCOL, "--format", "csv",
-                "--fraction-window-ms", "10:40", "--fraction-window-ms", "40:200", "--regularisation", "gcv");
+                "--fraction-window-ms", "10:40", "--fraction-window-ms", "40:200", "--regularisation", "cross-validation");
         assertEquals(0, c.code(), c.err());
         String[] lines = c.out().split("\n");
         assertEquals(3, lines.length);
         assertTrue(lines[0].startsWith("name,status,refocus_deg,chi2,chi2_unregularised,regularisation_weight,snr,"
-                + "gm_t2_ms,fraction_10_40ms,gm_t2_10_40ms,fraction_40_200ms,gm_t2_40_200ms,t2_10.00ms,t2_11.46ms"), lines[0]);
-        assertEquals(2 + 6 + 2 * 2 + 40, lines[1].split(",").length);
+                + "gm_t2_ms,fraction_10_40ms,gm_t2_10_40ms,fraction_40_200ms,gm_t2_40_200ms,t2_10.00ms,t2_11.64ms"), lines[0]);
+        assertEquals(2 + 6 + 2 * 2 + 33, lines[1].split(",").length);
         CliRun x = CliRun.of("spectrum", t.toString(), "--protocol", PROTOCOL, "--refocus-deg", "160",
                 "--regularisation", "none");
         assertEquals(0, x.code(), x.err());
@@ -127,12 +128,13 @@ class SpectrumCommandTest {
         Path m = tmp.resolve("mask.nii.gz");
         Nifti.write(m, NiftiHeader.create(NiftiDatatype.UINT8, nx, ny, nz), mask, false);
         Path out = tmp.resolve("maps");
+        // the decays were made with T1 1000 ms (the protocol's tissue has another T1)
         CliRun r = CliRun.of("spectrum", img.toString(), "--protocol", PROTOCOL, "--mask", m.toString(),
-                "--out", out.toString(), "--threads", "2", "--quiet");
+                "--out", out.toString(), "--threads", "2", "--quiet", "--t1-ms", "1000");
         assertEquals(0, r.code(), r.err());
         NiftiImage spec = Nifti.read(out.resolve("spectrum.nii.gz"));
         assertEquals(4, spec.header().rank());
-        assertEquals(40, spec.header().size(4));
+        assertEquals(33, spec.header().size(4));
         assertEquals(nx, spec.header().size(1));
         NiftiImage frac = Nifti.read(out.resolve("fraction_10_40ms.nii.gz"));
         NiftiImage angle = Nifti.read(out.resolve("refocus_deg.nii.gz"));
@@ -147,7 +149,7 @@ class SpectrumCommandTest {
             assertEquals(0.15, frac.get(v), 0.05, "fraction voxel " + v);
             assertEquals(160, angle.get(v), 4, "angle voxel " + v);
             double sum = 0;
-            for (int j = 0; j < 40; j++) {
+            for (int j = 0; j < 33; j++) {
                 sum += spec.get(v + n * j);
             }
             // amplitudes in data units: Σ s ≈ extrapolated signal at t = 0, here 1000 (sin 90° = 1)
@@ -167,7 +169,7 @@ class SpectrumCommandTest {
         assertTrue(wrongEchoes.err().contains("echoes"), wrongEchoes.err());
         JsonNode summary = Json.MAPPER.readTree(out.resolve("summary.json").toFile());
         assertEquals(23, summary.get("voxels_processed").asInt());
-        assertEquals(40, summary.get("settings").get("t2_ms").size());
+        assertEquals(33, summary.get("settings").get("t2_ms").size());
         for (String f : new String[] {"fraction_10_40ms.png", "refocus_deg.png", "gm_t2_ms.png", "snr.png"}) {
             assertTrue(Files.size(out.resolve(f)) > 1000, f);
         }
@@ -185,7 +187,7 @@ class SpectrumCommandTest {
             {"--t2-min-ms", "-3", "--t2-min-ms"},
             {"--regularisation", "lasso", "--regularisation"},
             {"--misfit-increase", "0.9", "--misfit-increase"},
-            {"--refocus-search-deg", "50:200:8", "--refocus-search-deg"},
+            {"--refocus-search-deg", "50:400:8", "--refocus-search-deg"},
             {"--refocus-search-deg", "50:180", "--refocus-search-deg"},
             {"--refocus-deg", "0", "--refocus-deg"},
         };

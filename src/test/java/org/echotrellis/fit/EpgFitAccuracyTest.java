@@ -73,7 +73,9 @@ class EpgFitAccuracyTest {
         T2Estimate near = fit.estimate(FitData.gaussian(clean, clean[0] / 200, r), Double.NaN);
         T2Estimate low = fit.estimate(FitData.gaussian(FitData.decay(TRAIN, 1000, 60, 0.7), 1.0 / 200, r), Double.NaN);
         assertTrue(low.b1Se() < 0.01, "B1 standard error at 0.7 is small, got " + low.b1Se());
-        assertTrue(near.b1Se() > 0.03 && near.b1Se() > 5 * low.b1Se(),
+        // near the fold B1 is weakly determined: a large standard error, or none where the data do
+        // not determine B1 within its bounds (NaN, printed '-' / null)
+        assertTrue(Double.isNaN(near.b1Se()) || near.b1Se() > 0.03 && near.b1Se() > 5 * low.b1Se(),
                 "B1 standard error near 1 must be large, got " + near.b1Se() + " (at 0.7: " + low.b1Se() + ")");
     }
 

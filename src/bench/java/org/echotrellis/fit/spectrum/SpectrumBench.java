@@ -20,9 +20,11 @@ import org.openjdk.jmh.annotations.Warmup;
 import org.openjdk.jmh.infra.Blackhole;
 
 /**
- * Spectrum fit throughput: 32 echoes (ESP 10 ms), 40 bins 10–2000 ms, 8-angle refinement 50–180°,
- * χ²-factor regularisation (1.02). One operation = one voxel; decays are brain-like mixtures with
- * refocusing 130–180° and SNR 100–400 (our own values), generated once.
+ * Spectrum fit throughput: 32 echoes (ESP 10 ms), the default settings of the protocol (33 bins
+ * 10–1280 ms, coarse angles then a continuous search, misfit regularisation 1 + 1/128). One operation
+ * = one voxel; decays are brain-like mixtures with refocusing 130–180° (B1 0.72–1.0) and SNR 100–400
+ * (our own values), generated once. {@code acquisition=ideal}: hard pulses; {@code slice}: sinc TBW 4
+ * slice-selective pulses on both, equal widths, decays from the slice model itself.
  *
  * <pre>
  * mvn -B -q -Pbench package -DskipTests
@@ -41,8 +43,11 @@ public class SpectrumBench {
     /** Shared: basis cache and decays. */
     @State(Scope.Benchmark)
     public static class Shared {
-        @Param({"chi2", "none", "gcv"})
+        @Param({"misfit", "none", "cross-validation"})
         public String regularisation;
+
+        @Param({"ideal", "slice"})
+        public String acquisition;
 
         BasisCache cache;
         SpectrumOptions options;
@@ -50,16 +55,17 @@ public class SpectrumBench {
 
         @Setup
         public void setup() {
-            options = SpectrumOptions.DEFAULT.withRegularisation(Regularisation.parse(regularisation));
-            cache = BasisCache.build(CpmgTrain.constant(32, 10, 180), 1000, options.grid(), options.search());
+            org.echotrellis.sequence.Protocol p = protocol(acquisition.equals("slice"));
+            options = SpectrumOptions.defaults(p).withT1Ms(1000).withRegularisation(Regularisation.parse(regularisation));
+            cache = BasisCache.build(p, 1000, options.grid(), options.search());
             decays = new double[VOXELS * 32];
             SplittableRandom rnd = new SplittableRandom(42);
             CpmgEngine engine = new CpmgEngine(1);
             for (int v = 0; v < VOXELS; v++) {
-                CpmgTrain t = CpmgTrain.constant(32, 10, 130 + 50 * rnd.nextDouble());
+                double b1 = (130 + 50 * rnd.nextDouble()) / 180;
                 double mwf = 0.2 * rnd.nextDouble();
-                double[] a = engine.echoes(t, 1000, 15 + 10 * rnd.nextDouble(), 1);
-                double[] b = engine.echoes(t, 1000, 60 + 40 * rnd.nextDouble(), 1);
+                double[] a = org.echotrellis.sequence.Simulator.simulate(p, 1000, 15 + 10 * rnd.nextDouble(), b1).magnitudes();
+                double[] b = org.echotrellis.sequence.Simulator.simulate(p, 1000, 60 + 40 * rnd.nextDouble(), b1).magnitudes();
                 double sigma = 1 / (100 + 300 * rnd.nextDouble());
                 for (int i = 0; i < 32; i++) {
                     double s = mwf * Math.abs(a[i]) + (1 - mwf) * Math.abs(b[i]);
@@ -68,6 +74,16 @@ public class SpectrumBench {
                     decays[v * 32 + i] = Math.hypot(re, im);
                 }
             }
+        }
+
+        static org.echotrellis.sequence.Protocol protocol(boolean slice) {
+            java.util.Optional<org.echotrellis.sequence.RfPulse> e = java.util.Optional.of(
+                    org.echotrellis.sequence.RfPulse.of("sinc", 4, 2));
+            org.echotrellis.sequence.Acquisition a = slice
+                    ? new org.echotrellis.sequence.Acquisition(e, e, true, 1, Double.POSITIVE_INFINITY, java.util.Optional.empty())
+                    : org.echotrellis.sequence.Acquisition.none();
+            return org.echotrellis.sequence.Protocol.ofTrain("bench", "", new org.echotrellis.sequence.Tissue("x", 1000, 80),
+                    1, CpmgTrain.constant(32, 10, 180), "bench", a);
         }
 
         static double gauss(SplittableRandom r) {
@@ -85,7 +101,7 @@ public class SpectrumBench {
         @Setup
         public void setup(Shared s) {
             fitter = new SpectrumFitter(s.cache, s.options);
-            amplitudes = new double[40];
+            amplitudes = new double[s.options.grid().bins()];
             scalars = new double[fitter.scalarCount()];
         }
     }

@@ -13,8 +13,21 @@ import org.echotrellis.Checks;
  */
 public record FractionWindow(double loMs, double hiMs) implements java.io.Serializable {
 
-    /** Default window 10–40 ms. */
-    public static final FractionWindow DEFAULT = new FractionWindow(10, 40);
+    /** Upper edge of the default short-T2 window in ms. */
+    public static final double SHORT_T2_EDGE_MS = 40;
+
+    /**
+     * The default window: every T2 the grid holds up to {@value #SHORT_T2_EDGE_MS} ms (the upper edge
+     * of the myelin water window used at 3 T, MacKay et al. 1994 and followers; the lower edge is the
+     * grid's own shortest T2, so nothing short is left out). Grids starting above 20 ms get
+     * [shortest, 2 × shortest].
+     *
+     * @param grid the T2 grid
+     * @return the window
+     */
+    public static FractionWindow shortT2(T2Grid grid) {
+        return new FractionWindow(grid.minMs(), Math.min(grid.maxMs(), Math.max(SHORT_T2_EDGE_MS, 2 * grid.minMs())));
+    }
 
     private static final double EDGE = 1e-9;
 

@@ -4,28 +4,49 @@ import org.echotrellis.Checks;
 import org.echotrellis.InputException;
 
 /**
- * Refocusing angles at which the unregularised fit is evaluated before the χ² minimum is located by
- * interpolation (Prasloski et al., "Applications of stimulated echo correction to multicomponent T2
- * analysis", MRM 67:1803, 2012). {@code count == 1} means a fixed angle (no search).
+ * The refocusing-angle search of the spectrum fit (angle estimation as in Prasloski et al.,
+ * "Applications of stimulated echo correction to multicomponent T2 analysis", MRM 67:1803, 2012):
+ * {@code count} equally spaced coarse angles bracket the χ² minimum, then a bounded 1-D minimiser
+ * refines it continuously. {@code count == 1} means a fixed angle (no search).
  *
- * @param loDeg smallest angle in degrees, (0, 180]
- * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 180
- * @param count number of equally spaced angles (1 = fixed angle loDeg, else ≥ 3)
+ * <p>Our default ({@link #forTrain}): from 0.3 × the nominal refocusing flip α_ref (B1 0.3, the
+ * fit's lower B1 bound) to 180° for ideal pulses (α and 360° − α give the same magnitude train) or
+ * to 1.4 × α_ref with slice selection (the train is not symmetric about 180° there, METHODS §10),
+ * coarse points every {@value #COARSE_STEP_DEG}° at most.
+ *
+ * @param loDeg smallest angle in degrees, (0, 360]
+ * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 360
+ * @param count number of equally spaced coarse angles (1 = fixed angle loDeg, else ≥ 3)
  */
 public record RefocusSearch(double loDeg, double hiDeg, int count) implements java.io.Serializable {
 
-    /** Default search: 8 angles from 50° to 180°. */
-    public static final RefocusSearch DEFAULT = new RefocusSearch(50, 180, 8);
+    /** Largest spacing of the default coarse angles in degrees. */
+    public static final double COARSE_STEP_DEG = 15;
 
-    /** Validates the range; angles above 180° are refused because α and 360° − α give identical magnitude trains. */
+    /** Validates the range. */
     public RefocusSearch {
-        Checks.inRange("--refocus-search-deg LO", loDeg, 1e-6, 180, null);
-        Checks.inRange("--refocus-search-deg HI", hiDeg, loDeg, 180, null);
+        Checks.inRange("--refocus-search-deg LO", loDeg, 1e-6, 360, null);
+        Checks.inRange("--refocus-search-deg HI", hiDeg, loDeg, 360, null);
         Checks.require(count == 1 || count >= 3,
-                "--refocus-search-deg COUNT must be ≥ 3 (the minimum is interpolated), got " + count);
+                "--refocus-search-deg COUNT must be ≥ 3 (the minimum is bracketed), got " + count);
         Checks.inRange("--refocus-search-deg COUNT", count, 1, 64, null);
         Checks.require(count == 1 || hiDeg > loDeg, "--refocus-search-deg needs LO < HI, got "
                 + loDeg + ":" + hiDeg);
+    }
+
+    /**
+     * The default search of a train.
+     *
+     * @param refDeg nominal refocusing flip α_ref in degrees
+     * @param symmetric true for ideal pulses (magnitude trains symmetric about 180°)
+     * @return the search
+     */
+    public static RefocusSearch forTrain(double refDeg, boolean symmetric) {
+        double lo = 0.3 * refDeg;
+        double hi = symmetric ? Math.max(180, refDeg) : Math.min(360, 1.4 * refDeg);
+        hi = Math.min(hi, 360);
+        int count = Math.max(3, (int) Math.ceil((hi - lo) / COARSE_STEP_DEG - 1e-9) + 1);
+        return new RefocusSearch(lo, hi, Math.min(64, count));
     }
 
     /**
@@ -35,7 +56,7 @@ public record RefocusSearch(double loDeg, double hiDeg, int count) implements ja
      * @return the search of one angle
      */
     public static RefocusSearch fixed(double deg) {
-        Checks.inRange("--refocus-deg", deg, 1e-6, 180, null);
+        Checks.inRange("--refocus-deg", deg, 1e-6, 360, null);
         return new RefocusSearch(deg, deg, 1);
     }
 

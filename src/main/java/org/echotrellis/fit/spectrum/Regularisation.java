@@ -1,23 +1,28 @@
 package org.echotrellis.fit.spectrum;
 
-import java.util.Locale;
 import org.echotrellis.InputException;
 
-/** How the Tikhonov weight μ of the spectrum fit is chosen. */
+/** How the Tikhonov weight μ of the spectrum fit is chosen. Option values are descriptive words. */
 public enum Regularisation {
     /** μ = 0: plain NNLS (sparse spectra). */
-    NONE,
+    NONE("none"),
     /**
-     * μ such that the misfit rises by a given factor over the unregularised misfit
-     * (Whittall &amp; MacKay, J Magn Reson 84:134, 1989; factor 1.02 as in Whittall et al., MRM 37:34, 1997).
+     * μ such that the misfit rises by a given factor over the unregularised misfit (the misfit
+     * criterion of Whittall &amp; MacKay, J Magn Reson 84:134, 1989).
      */
-    CHI2,
+    MISFIT("misfit"),
     /** μ minimising generalised cross-validation (Golub, Heath &amp; Wahba, Technometrics 21:215, 1979). */
-    GCV;
+    CROSS_VALIDATION("cross-validation");
 
-    /** @return the option spelling ({@code none}, {@code chi2}, {@code gcv}) */
+    private final String label;
+
+    Regularisation(String label) {
+        this.label = label;
+    }
+
+    /** @return the option spelling ({@code none}, {@code misfit}, {@code cross-validation}) */
     public String label() {
-        return name().toLowerCase(Locale.ROOT);
+        return label;
     }
 
     /**
@@ -27,10 +32,10 @@ public enum Regularisation {
      */
     public static Regularisation parse(String text) {
         for (Regularisation r : values()) {
-            if (r.label().equals(text.trim().toLowerCase(Locale.ROOT))) {
+            if (r.label.equals(text.trim())) {
                 return r;
             }
         }
-        throw new InputException("--regularisation must be one of none, chi2, gcv; got '" + text + "'");
+        throw new InputException("--regularisation must be one of misfit, cross-validation, none; got '" + text + "'");
     }
 }

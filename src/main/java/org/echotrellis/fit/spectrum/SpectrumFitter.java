@@ -11,9 +11,13 @@ import org.echotrellis.Checks;
  *
  * <p>Per decay (Prasloski et al., MRM 67:1803, 2012; Whittall &amp; MacKay, J Magn Reson 84:134, 1989):
  * <ol>
- *   <li>for each search angle α_k, unregularised NNLS with the cached basis → χ²(α_k);</li>
- *   <li>the minimum of the natural cubic spline through χ²(α_k) gives the refocusing angle α̂;</li>
- *   <li>basis at α̂ interpolated from the cache, unregularised NNLS → s₀, χ²₀;</li>
+ *   <li>for each coarse angle α_k, unregularised NNLS with the cached basis → χ²(α_k);</li>
+ *   <li>around the lowest coarse point (and around a second local minimum whose χ² is within
+ *   {@value #CLOSE} relative of it, so the global minimum is kept when χ²(α) has two basins), a bounded
+ *   1-D minimiser (Brent 1973) on the continuous χ²(α) with the basis interpolated from the cache
+ *   gives the refocusing angle α̂ (to {@value #ANGLE_TOL_DEG}°); with a B1 map, α̂ = B1·α_ref and no
+ *   search;</li>
+ *   <li>basis at α̂, unregularised NNLS → s₀, χ²₀;</li>
  *   <li>weight μ by the χ² factor or GCV, final spectrum s_μ (augmented NNLS);</li>
  *   <li>fractions Σ_window s / Σ s, geometric-mean T2 exp(Σ s·ln T2 / Σ s) over the whole spectrum and
  *   each window, SNR = max fitted echo / σ̂ with σ̂ = √(χ²₀ / (echoes − non-zero bins)).</li>
@@ -23,7 +27,8 @@ import org.echotrellis.Checks;
  *
  * <p>One fitter per thread (not thread-safe); the {@link BasisCache} is shared. The hot method
  * {@link #fit(double[], int, double[], double[])} allocates nothing. Cost per decay with the default
- * settings: 9 + (≈ 6–10) NNLS solves of 40 unknowns and one 32 × 40 Gram product.
+ * settings (32 echoes, 35 bins, 14 coarse angles): 14 coarse NNLS solves, ≈ 8–12 interpolated bases
+ * with their Gram products and NNLS in the continuous search, then ≈ 6–10 augmented NNLS for μ.
  */
 public final class SpectrumFitter {
 
@@ -47,7 +52,17 @@ public final class SpectrumFitter {
     private final int n;
     private final Nnls nnls = new Nnls();
     private final WeightSearch weights;
-    private final SplineMinimum spline = new SplineMinimum();
+    /** Second coarse minima with χ² up to this fraction above the lowest are refined too. */
+    static final double CLOSE = 0.1;
+    /** Tolerance of the continuous angle search in degrees. */
+    static final double ANGLE_TOL_DEG = 0.1;
+    private static final int MAX_EVALUATIONS = 40;
+
+    private final BoundedMinimum minimiser = new BoundedMinimum();
+    private final java.util.function.DoubleUnaryOperator chi2Function = this::chi2At;
+    private double[] data;
+    private int dataOffset;
+    private double lastAngle = Double.NaN;
     private final double[] b;
     private final double[] x0;
     private final double[] x;
@@ -125,6 +140,20 @@ public final class SpectrumFitter {
      * @return a {@link SpectrumStatus} code
      */
     public int fit(double[] decay, int offset, double[] amplitudes, double[] scalars) {
+        return fit(decay, offset, Double.NaN, amplitudes, scalars);
+    }
+
+    /**
+     * Fits one decay with the refocusing scale given by a B1 map (no search), or searched when NaN.
+     *
+     * @param decay      echo magnitudes; not modified
+     * @param offset     index of echo 1 in {@code decay}
+     * @param b1Scale    B1 from a map (refocusing angle B1·α_ref), or NaN to search
+     * @param amplitudes out: spectrum; overwritten
+     * @param scalars    out: scalars; overwritten
+     * @return a {@link SpectrumStatus} code
+     */
+    public int fit(double[] decay, int offset, double b1Scale, double[] amplitudes, double[] scalars) {
         double yy = 0;
         double ymax = Double.NEGATIVE_INFINITY;
         for (int i = 0; i < m; i++) {
@@ -143,22 +172,62 @@ public final class SpectrumFitter {
         double[] gram;
         double angle;
         RefocusSearch search = options.search();
-        if (search.isFixed()) {
+        data = decay;
+        dataOffset = offset;
+        if (search.isFixed() && Double.isNaN(b1Scale)) {
             basis = cache.searchBasis(0);
             gram = cache.searchGram(0);
             angle = search.loDeg();
+        } else if (!Double.isNaN(b1Scale)) {
+            angle = b1Scale * cache.referenceDeg();
+            if (cache.symmetric() && angle > 180) {
+                angle = 360 - angle;
+            }
+            if (!(b1Scale > 0) || !(angle >= search.loDeg() - 1e-9 && angle <= search.hiDeg() + 1e-9)) {
+                return blank(amplitudes, scalars, SpectrumStatus.B1_OUT_OF_RANGE);
+            }
+            if (search.isFixed()) {
+                basis = cache.searchBasis(0);
+                gram = cache.searchGram(0);
+            } else {
+                cache.basisAt(angle, a);
+                cache.gramAt(angle, a, g);
+                lastAngle = angle;
+                basis = a;
+                gram = g;
+            }
         } else {
-            for (int k = 0; k < search.count(); k++) {
+            int count = search.count();
+            int k1 = 0;
+            for (int k = 0; k < count; k++) {
                 double[] ak = cache.searchBasis(k);
                 Gram.project(ak, m, n, decay, offset, b);
                 converged &= nnls.solve(cache.searchGram(k), b, n, 0, k > 0, x0) == Nnls.CONVERGED;
                 chi2k[k] = Gram.residual(ak, m, n, x0, decay, offset, fitted);
+                if (chi2k[k] < chi2k[k1]) {
+                    k1 = k;
+                }
             }
-            double step = (search.hiDeg() - search.loDeg()) / (search.count() - 1);
-            angle = Math.max(search.loDeg(), Math.min(search.hiDeg(),
-                    spline.argmin(search.loDeg(), step, chi2k, search.count())));
-            cache.basisAt(angle, a);
-            Gram.fill(a, m, n, g);
+            // a second basin: the lowest other local minimum of the coarse χ², if close
+            int k2 = -1;
+            for (int k = 0; k < count; k++) {
+                boolean local = (k == 0 || chi2k[k] <= chi2k[k - 1]) && (k == count - 1 || chi2k[k] <= chi2k[k + 1]);
+                if (local && Math.abs(k - k1) > 1 && chi2k[k] <= (1 + CLOSE) * chi2k[k1]
+                        && (k2 < 0 || chi2k[k] < chi2k[k2])) {
+                    k2 = k;
+                }
+            }
+            angle = refine(search, k1);
+            double best = minimiser.value();
+            if (k2 >= 0) {
+                double other = refine(search, k2);
+                if (minimiser.value() < best) {
+                    angle = other;
+                }
+            }
+            if (lastAngle != angle) {
+                chi2At(angle);
+            }
             basis = a;
             gram = g;
         }
@@ -175,13 +244,13 @@ public final class SpectrumFitter {
         double chi2;
         boolean reached = true;
         switch (options.regularisation()) {
-            case CHI2:
+            case MISFIT:
                 mu = weights.chi2Factor(options.misfitIncrease(), x0, chi20, yy, x);
                 chi2 = weights.chi2();
                 reached = weights.reached();
                 converged &= weights.converged();
                 break;
-            case GCV:
+            case CROSS_VALIDATION:
                 mu = weights.gcv(x0, chi20, p0, x);
                 chi2 = weights.chi2();
                 converged &= weights.converged();
@@ -206,6 +275,23 @@ public final class SpectrumFitter {
             return SpectrumStatus.TARGET_NOT_REACHED;
         }
         return scalars[SNR] < SpectrumStatus.LOW_SIGNAL_SNR ? SpectrumStatus.LOW_SIGNAL : SpectrumStatus.OK;
+    }
+
+    /** Continuous search between the coarse neighbours of point k; returns the angle. */
+    private double refine(RefocusSearch search, int k) {
+        double lo = search.angleDeg(Math.max(0, k - 1));
+        double hi = search.angleDeg(Math.min(search.count() - 1, k + 1));
+        return minimiser.argmin(chi2Function, lo, hi, ANGLE_TOL_DEG, MAX_EVALUATIONS);
+    }
+
+    /** Unregularised misfit at an angle; leaves the interpolated basis and its Gram matrix in a and g. */
+    private double chi2At(double angleDeg) {
+        cache.basisAt(angleDeg, a);
+        cache.gramAt(angleDeg, a, g);
+        Gram.project(a, m, n, data, dataOffset, b);
+        nnls.solve(g, b, n, 0, true, x0);  // warm start: the previous angle's solution is close
+        lastAngle = angleDeg;
+        return Gram.residual(a, m, n, x0, data, dataOffset, fitted);
     }
 
     private void metrics(double[] scalars) {

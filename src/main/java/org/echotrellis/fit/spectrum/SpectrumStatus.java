@@ -23,6 +23,8 @@ public final class SpectrumStatus {
      * about 2–5 (common practice: spectra need SNR in the hundreds to be trusted).
      */
     public static final int LOW_SIGNAL = 6;
+    /** The B1 map value puts the refocusing angle outside the tabulated range: not fitted. */
+    public static final int B1_OUT_OF_RANGE = 7;
     /** SNR estimate below which a fit is {@link #LOW_SIGNAL}. */
     public static final double LOW_SIGNAL_SNR = 10;
 
@@ -31,7 +33,7 @@ public final class SpectrumStatus {
      * @return true if the decay was fitted (the numbers are defined), whatever the caveat
      */
     public static boolean fitted(int status) {
-        return status != MASKED && status != INVALID && status != NO_SIGNAL;
+        return status != MASKED && status != INVALID && status != NO_SIGNAL && status != B1_OUT_OF_RANGE;
     }
 
     /**
@@ -47,6 +49,7 @@ public final class SpectrumStatus {
             case NOT_CONVERGED: return "NNLS iteration limit";
             case TARGET_NOT_REACHED: return "regularisation target not reached";
             case LOW_SIGNAL: return "low signal";
+            case B1_OUT_OF_RANGE: return "B1 map value outside the refocusing range";
             default: return "unknown";
         }
     }

@@ -37,7 +37,7 @@ public final class BidsDerivatives {
     private BidsDerivatives() { }
 
     /** Everything one collection's run needs besides the collection. */
-    public record Settings(Optional<FitOptions> fit, Optional<org.echotrellis.fit.spectrum.SpectrumOptions> spectrum,
+    public record Settings(Optional<FitOptions> fit, Optional<org.echotrellis.fit.spectrum.SpectrumChoices> spectrum,
                            Optional<Path> b1Override, double b1OverrideFactor, int threads, boolean force,
                            String commandLine) { }
 
@@ -153,7 +153,7 @@ public final class BidsDerivatives {
                 written.add(summary(dir.resolve(p + "_desc-fit_summary.json"), m, c, provenance, s.force()));
             }
             if (s.spectrum().isPresent()) {
-                VolumeAnalysis a = VolumeAnalysis.spectrum(protocol.parse(), s.spectrum().get());
+                VolumeAnalysis a = VolumeAnalysis.spectrum(protocol.parse(), s.spectrum().get().resolve(protocol.parse()));
                 VolumeMaps m = a.run(series, Optional.empty(), Optional.empty(), s.threads(), progress);
                 Map<String, Object> side = sidecarBase(sources, acquisition, a,
                         "non-negative least-squares T2 spectrum on an EPG basis with refocusing-angle refinement; "

@@ -3,20 +3,19 @@ package org.echotrellis.fit.volume;
 import java.io.Serializable;
 
 import org.echotrellis.Checks;
-import org.echotrellis.epg.CpmgTrain;
 import org.echotrellis.fit.FitModel;
 import org.echotrellis.fit.FitSettings;
-import org.echotrellis.fit.SliceProfile;
-import org.echotrellis.fit.SliceProfiles;
+import org.echotrellis.sequence.Protocol;
 
 /**
  * The settings of a T2 fit that do not come from the protocol, as plain serialisable values (a
  * distributed job ships them with the {@link org.echotrellis.sequence.ProtocolText}; the workers
- * build {@link FitSettings} from both with {@link #settings(CpmgTrain)}). Immutable; change through
+ * build {@link FitSettings} from both with {@link #settings(Protocol)}). The acquisition (pulses,
+ * slice selection, repetition time, diffusion) is the protocol's, never an option. Immutable; change through
  * the {@code withX} copies.
  *
  * @param model the decay model
- * @param t1Ms fixed T1 in ms (may be +Infinity)
+ * @param t1Ms fixed T1 in ms (may be +Infinity), or NaN for the protocol tissue's T1
  * @param t2MinMs lower T2 bound in ms
  * @param t2MaxMs upper T2 bound in ms
  * @param b1Min lower B1 bound
@@ -25,29 +24,23 @@ import org.echotrellis.fit.SliceProfiles;
  * @param noiseSigma channel noise σ for the Rician mean model, NaN for plain least squares
  * @param noiseFromBackground estimate σ from the voxels outside the mask (volumes with a mask only;
  *        {@code noiseSigma} is then ignored)
- * @param sliceProfile {@code none}, {@code sinc:TBW}, {@code gauss:TBW} or the path of a
- *        pulse-envelope file (which must exist where the settings are used)
- * @param slicePositions positions across the half slice of the profile
- * @param refocusSliceRatio refocusing-to-excitation slice thickness ratio
  * @param monoOffset fit a constant offset in the mono-exponential model
  * @param monoSkipFirst drop the first echo in the mono-exponential model
  * @param compareMono also fit the mono-exponential model (EPG model only; map {@code mono_t2_ms})
  */
 public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2MaxMs, double b1Min, double b1Max,
-                         boolean fold, double noiseSigma, boolean noiseFromBackground, String sliceProfile,
-                         int slicePositions, double refocusSliceRatio, boolean monoOffset, boolean monoSkipFirst,
-                         boolean compareMono) implements Serializable {
+                         boolean fold, double noiseSigma, boolean noiseFromBackground, boolean monoOffset,
+                         boolean monoSkipFirst, boolean compareMono) implements Serializable {
     private static final long serialVersionUID = 1L;
 
-    /** The defaults of the {@code fit} command: EPG, T1 1 s, T2 1–5000 ms, B1 0.3–1.7 folded, no noise model, no slice profile. */
-    public static final FitOptions DEFAULT = new FitOptions(FitModel.EPG, 1000, 1, 5000, 0.3, 1.7, true, Double.NaN,
-            false, "none", 16, 1.0, false, false, false);
+    /** The defaults of the {@code fit} command: EPG, T1 of the protocol tissue, T2 1–5000 ms, B1 0.3–1.7 folded, no noise model. */
+    public static final FitOptions DEFAULT = new FitOptions(FitModel.EPG, Double.NaN, 1, 5000, 0.3, 1.7, true, Double.NaN,
+            false, false, false, false);
 
     /** Validates the values that need no protocol (parameters are named by their summary keys). */
     public FitOptions {
         Checks.require(model != null, "model must be epg or mono, got null");
-        sliceProfile = sliceProfile == null ? "none" : sliceProfile;
-        Checks.positiveOrInfinite("t1_ms", t1Ms, null);
+        Checks.require(Double.isNaN(t1Ms) || t1Ms > 0, "t1_ms must be > 0 (or NaN for the protocol tissue's), got " + t1Ms);
         Checks.positive("t2_min_ms", t2MinMs, null);
         Checks.positive("t2_max_ms", t2MaxMs, null);
         Checks.require(t2MaxMs > t2MinMs, "t2_max_ms must be > t2_min_ms, got " + t2MaxMs + " <= " + t2MinMs);
@@ -59,15 +52,19 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
     }
 
     /**
-     * Builds the fit settings for a protocol's train (simulates the slice profile if one is set).
+     * Builds the fit settings for a protocol (its whole acquisition is the model).
      *
-     * @param train the protocol's CPMG train
+     * @param protocol the acquisition (a CPMG train)
      * @return the settings; the noise σ is NaN when it is to be estimated from the background
      */
-    public FitSettings settings(CpmgTrain train) {
-        SliceProfile profile = SliceProfiles.parse(sliceProfile, train, slicePositions, refocusSliceRatio);
-        return new FitSettings(train, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold,
-                noiseFromBackground ? Double.NaN : noiseSigma, profile, monoOffset, monoSkipFirst);
+    public FitSettings settings(Protocol protocol) {
+        return new FitSettings(protocol, Double.isNaN(t1Ms) ? protocol.tissue().t1Ms() : t1Ms, t2MinMs, t2MaxMs, b1Min,
+                b1Max, fold, noiseFromBackground ? Double.NaN : noiseSigma, monoOffset, monoSkipFirst);
+    }
+
+    /** @return where the fixed T1 comes from: {@code --t1-ms} or {@code protocol tissue} */
+    public String t1Source() {
+        return Double.isNaN(t1Ms) ? "protocol tissue" : "--t1-ms";
     }
 
     /**
@@ -76,7 +73,7 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
      */
     public FitOptions withModel(FitModel m) {
         return new FitOptions(m, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, noiseFromBackground,
-                sliceProfile, slicePositions, refocusSliceRatio, monoOffset, monoSkipFirst, compareMono);
+                monoOffset, monoSkipFirst, compareMono);
     }
 
     /**
@@ -85,7 +82,7 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
      */
     public FitOptions withT1Ms(double ms) {
         return new FitOptions(model, ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, noiseFromBackground,
-                sliceProfile, slicePositions, refocusSliceRatio, monoOffset, monoSkipFirst, compareMono);
+                monoOffset, monoSkipFirst, compareMono);
     }
 
     /**
@@ -95,7 +92,7 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
      */
     public FitOptions withT2BoundsMs(double lo, double hi) {
         return new FitOptions(model, t1Ms, lo, hi, b1Min, b1Max, fold, noiseSigma, noiseFromBackground,
-                sliceProfile, slicePositions, refocusSliceRatio, monoOffset, monoSkipFirst, compareMono);
+                monoOffset, monoSkipFirst, compareMono);
     }
 
     /**
@@ -105,7 +102,7 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
      */
     public FitOptions withB1Bounds(double lo, double hi) {
         return new FitOptions(model, t1Ms, t2MinMs, t2MaxMs, lo, hi, fold, noiseSigma, noiseFromBackground,
-                sliceProfile, slicePositions, refocusSliceRatio, monoOffset, monoSkipFirst, compareMono);
+                monoOffset, monoSkipFirst, compareMono);
     }
 
     /**
@@ -115,18 +112,7 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
      */
     public FitOptions withNoise(double sigma, boolean fromBackground) {
         return new FitOptions(model, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, sigma, fromBackground,
-                sliceProfile, slicePositions, refocusSliceRatio, monoOffset, monoSkipFirst, compareMono);
-    }
-
-    /**
-     * @param spec {@code none}, {@code sinc:TBW}, {@code gauss:TBW} or a pulse-envelope file
-     * @param positions positions across the half slice
-     * @param ratio refocusing-to-excitation slice thickness ratio
-     * @return a copy with another slice profile
-     */
-    public FitOptions withSliceProfile(String spec, int positions, double ratio) {
-        return new FitOptions(model, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, noiseFromBackground,
-                spec, positions, ratio, monoOffset, monoSkipFirst, compareMono);
+                monoOffset, monoSkipFirst, compareMono);
     }
 
     /**
@@ -137,6 +123,6 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
      */
     public FitOptions withMono(boolean offset, boolean skipFirst, boolean compare) {
         return new FitOptions(model, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, noiseFromBackground,
-                sliceProfile, slicePositions, refocusSliceRatio, offset, skipFirst, compare);
+                offset, skipFirst, compare);
     }
 }

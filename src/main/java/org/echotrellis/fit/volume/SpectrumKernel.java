@@ -27,7 +27,7 @@ final class SpectrumKernel implements VoxelKernel {
 
     @Override
     public VoxelStatus process(double[] echoes, int offset, int count, double b1Scale, double[] out) {
-        int status = fitter.fit(echoes, offset, amplitudes, scalars);
+        int status = fitter.fit(echoes, offset, b1Scale, amplitudes, scalars);
         int k = scalars.length;
         System.arraycopy(scalars, 0, out, 0, k);
         System.arraycopy(amplitudes, 0, out, k, amplitudes.length);

@@ -10,6 +10,7 @@ import java.util.Optional;
 
 import org.echotrellis.InputException;
 import org.echotrellis.epg.CpmgTrain;
+import org.echotrellis.fit.Acquisitions;
 import org.echotrellis.fit.FitSettings;
 import org.echotrellis.fit.T2Fit;
 import org.echotrellis.fit.spectrum.BasisCache;
@@ -67,13 +68,13 @@ public final class VolumeAnalysis {
         this.fitOptions = fitOptions;
         this.spectrumOptions = spectrumOptions;
         if (kind == Kind.FIT) {
-            fitSettings = fitOptions.settings(train);
+            fitSettings = fitOptions.settings(protocol);
             fitFactory = new T2Fit.Factory(fitSettings, fitOptions.model(), fitOptions.compareMono());
             cache = null;
         } else {
             fitSettings = null;
             fitFactory = null;
-            cache = BasisCache.build(train, spectrumOptions.t1Ms(), spectrumOptions.grid(), spectrumOptions.search());
+            cache = BasisCache.build(protocol, spectrumOptions.t1Ms(), spectrumOptions.grid(), spectrumOptions.search());
         }
     }
 
@@ -163,12 +164,12 @@ public final class VolumeAnalysis {
         s.put("echo_spacing_ms", train.echoSpacingMs());
         if (kind == Kind.FIT) {
             s.put("model", fitOptions.model().name().toLowerCase(Locale.ROOT));
-            s.put("t1_ms", fitOptions.t1Ms());
+            s.put("t1_ms", fitSettings.t1Ms());
+            s.put("t1_source", fitOptions.t1Source());
             s.put("t2_bounds_ms", List.of(fitOptions.t2MinMs(), fitOptions.t2MaxMs()));
             s.put("b1_bounds", List.of(fitOptions.b1Min(), fitSettings.effectiveB1Max()));
             s.put("b1_folded", fitSettings.foldActive());
-            s.put("slice_profile", fitSettings.profile().label());
-            s.put("slice_positions", fitSettings.profile().positions());
+            s.put("acquisition", Acquisitions.describe(protocol));
             return s;
         }
         SpectrumOptions o = spectrumOptions;
@@ -181,7 +182,9 @@ public final class VolumeAnalysis {
         s.put("misfit_increase", o.misfitIncrease());
         RefocusSearch r = o.search();
         s.put("refocus", r.isFixed() ? Map.of("fixed_deg", r.loDeg())
-                : Map.of("lo_deg", r.loDeg(), "hi_deg", r.hiDeg(), "count", r.count()));
+                : Map.of("lo_deg", r.loDeg(), "hi_deg", r.hiDeg(), "count", r.count(),
+                        "method", "coarse bracket, then continuous bounded minimisation of the misfit"));
+        s.put("acquisition", Acquisitions.describe(protocol));
         List<Map<String, Double>> ws = new ArrayList<>();
         for (FractionWindow w : o.windows()) {
             ws.add(Map.of("lo_ms", w.loMs(), "hi_ms", w.hiMs()));

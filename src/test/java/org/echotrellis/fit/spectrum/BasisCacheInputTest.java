@@ -17,10 +17,10 @@ class BasisCacheInputTest {
         for (double exc : new double[] {0, 180, 360}) {
             CpmgTrain train = CpmgTrain.constant(8, 10, 160).withExcitationFlipDeg(exc);
             InputException e = assertThrows(InputException.class,
-                    () -> BasisCache.build(train, 1000, T2Grid.DEFAULT, RefocusSearch.DEFAULT), "excitation " + exc);
+                    () -> BasisCache.build(train, 1000, T2Grid.forEchoTimes(10, 320), RefocusSearch.forTrain(180, true)), "excitation " + exc);
             assertTrue(e.getMessage().contains("excitation"), e.getMessage());
         }
         assertDoesNotThrow(() -> BasisCache.build(CpmgTrain.constant(8, 10, 160).withExcitationFlipDeg(30), 1000,
-                T2Grid.DEFAULT, RefocusSearch.fixed(160)));
+                T2Grid.forEchoTimes(10, 320), RefocusSearch.fixed(160)));
     }
 }

@@ -17,15 +17,16 @@ class GcvSearchTest {
     @ParameterizedTest
     @ValueSource(longs = {8, 1234, 50_505})
     void searchMatchesDenseScan(long seed) {
-        SpectrumOptions o = SpectrumOptions.DEFAULT.withSearch(RefocusSearch.fixed(150))
-                .withRegularisation(Regularisation.GCV);
+        SpectrumOptions o = SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true).withSearch(RefocusSearch.fixed(150))
+                .withRegularisation(Regularisation.CROSS_VALIDATION)
+                .withWindows(java.util.List.of(new FractionWindow(10, 40))).withGrid(new T2Grid(10, 2000, 40));
         BasisCache cache = BasisCache.build(CpmgTrain.constant(32, 10, 180), 1000, o.grid(), o.search());
         SpectrumFitter fitter = new SpectrumFitter(cache, o);
         SplittableRandom rnd = new SplittableRandom(seed);
         double[] a = cache.searchBasis(0);
         double[] g = cache.searchGram(0);
         int m = 32;
-        int n = 40;
+        int n = o.grid().bins();
         double scale = 0;
         for (int j = 0; j < n; j++) {
             scale += g[j * n + j] / n;
@@ -51,8 +52,8 @@ class GcvSearchTest {
 
     private static double v(Nnls nnls, double[] g, double[] b, double[] a, double[] y, double mu, double[] x,
                             double[] fit) {
-        nnls.solve(g, b, 40, mu, false, x);
-        double rss = Gram.residual(a, 32, 40, x, y, 0, fit);
+        nnls.solve(g, b, x.length, mu, false, x);
+        double rss = Gram.residual(a, 32, x.length, x, y, 0, fit);
         double df = nnls.passiveCount() - mu * nnls.inverseTrace();
         return 32 * rss / ((32 - df) * (32 - df));
     }

@@ -165,21 +165,16 @@ class NnlsTest {
     }
 
     @ParameterizedTest
-    @ValueSource(ints = {3, 8, 11})
-    void splineMinimumOfSymmetricDataIsTheCentre(int count) {
-        SplineMinimum s = new SplineMinimum();
-        double[] y = new double[count];
-        double c = (count - 1) / 2.0;
-        for (int k = 0; k < count; k++) {
-            y[k] = 1 + (k - c) * (k - c) + 0.1 * Math.pow(k - c, 4);
-        }
-        // symmetric data: the natural spline is symmetric, so its minimum is at the centre (exact)
-        assertEquals(50 + 10 * c, s.argmin(50, 10, y, count), 1e-9);
-        double[] down = new double[count];
-        for (int k = 0; k < count; k++) {
-            down[k] = count - k;
-        }
-        // linear data: the natural spline is the line itself, minimum at the last point
-        assertEquals(50 + 10 * (count - 1), s.argmin(50, 10, down, count), 1e-9);
+    @ValueSource(doubles = {0.3, 1.7, 2.9})
+    void boundedMinimumFindsTheMinimumOfAQuarticAndStopsAtABound(double centre) {
+        // (x - c)^2 + (x - c)^4 has its only minimum at c (calculus; common practice); Brent's
+        // method (Brent 1973, ch. 5) must find it to the tolerance, and a monotone function's
+        // minimum on [0, 3] lies at the bound.
+        BoundedMinimum s = new BoundedMinimum();
+        double x = s.argmin(v -> (v - centre) * (v - centre) + Math.pow(v - centre, 4), 0, 3, 1e-6, 100);
+        assertEquals(centre, x, 1e-5);
+        assertEquals(0, s.value(), 1e-9);
+        assertEquals(3, s.argmin(v -> -v, 0, 3, 1e-6, 100), 1e-5);
+        assertTrue(s.evaluations() <= 100);
     }
 }

@@ -20,7 +20,7 @@ import org.junit.jupiter.params.provider.ValueSource;
 class SpectrumAccuracyTest {
 
     static final CpmgTrain TRAIN = CpmgTrain.constant(32, 10, 180);
-    static final SpectrumOptions OPTIONS = SpectrumOptions.DEFAULT;
+    static final SpectrumOptions OPTIONS = SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true);
     static final BasisCache CACHE = BasisCache.build(TRAIN, 1000, OPTIONS.grid(), OPTIONS.search());
 
     /**
@@ -150,6 +150,6 @@ class SpectrumAccuracyTest {
     }
 
     static List<FractionWindow> windows() {
-        return List.of(FractionWindow.DEFAULT);
+        return List.of(FractionWindow.shortT2(OPTIONS.grid()));
     }
 }

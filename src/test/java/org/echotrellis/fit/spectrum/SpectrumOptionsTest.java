@@ -16,9 +16,9 @@ class SpectrumOptionsTest {
         // file would collide with the first after the whole volume was fitted
         List<FractionWindow> twice = List.of(FractionWindow.parse("10:40"), FractionWindow.parse("10.0:40"));
         InputException e = assertThrows(InputException.class,
-                () -> SpectrumOptions.DEFAULT.withWindows(twice));
+                () -> SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true).withWindows(twice));
         assertTrue(e.getMessage().contains("--fraction-window-ms") && e.getMessage().contains("10:40"), e.getMessage());
-        assertDoesNotThrow(() -> SpectrumOptions.DEFAULT.withWindows(
+        assertDoesNotThrow(() -> SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true).withWindows(
                 List.of(FractionWindow.parse("10:40"), FractionWindow.parse("10:50"))));
     }
 }

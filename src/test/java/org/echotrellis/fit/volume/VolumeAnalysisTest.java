@@ -127,7 +127,8 @@ class VolumeAnalysisTest {
 
     @Test
     void spectrumWritesOneVolumePerBin() {
-        SpectrumOptions o = SpectrumOptions.DEFAULT.withGrid(new org.echotrellis.fit.spectrum.T2Grid(10, 1000, 20));
+        SpectrumOptions o = SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true)
+                .withGrid(new org.echotrellis.fit.spectrum.T2Grid(10, 1000, 20));
         VolumeRequest request = VolumeRequest.spectrum(ProtocolText.read(PROTOCOL), o);
         VolumeAnalysis a = request.analysis();
         Path s = series(a.train(), "s.nii");

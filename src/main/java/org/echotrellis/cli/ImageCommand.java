@@ -37,15 +37,18 @@ import picocli.CommandLine.Spec;
                 + "contrast and CNR; plot the weights, the PSFs and a simulated phantom image next to the ideal one.",
             "One phase-encoding direction; no motion, no T2* or off-resonance during the read-out."},
         footer = {"", "Tissues: a preset name, or NAME:T1_MS:T2_MS (default: the protocol's tissue).",
-            "Phantom: builtin (discs of 5 sizes, one row per tissue after the first, on the first tissue), or a label",
-            "image (.png grey values, or a .nii/.nii.gz slice) with --label VALUE=TISSUE for each label that has signal.",
+            "Phantom: builtin (discs of 5 sizes, one row per tissue after the first, on",
+            "the first tissue), or a label image (.png grey values, or a .nii/.nii.gz",
+            "slice) with --label VALUE=TISSUE for each label that has signal.",
             "", "Examples:",
-            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 --center-echo 8 \\",
-            "      --tissue white_matter_3t --tissue csf:4300:1900 --noise-sd 0.01 --plot brain.png",
-            "  echotrellis image sequences/knee-t2-16.yaml --phase-lines 128 --ordering centric --format json",
-            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 192 --tissue white_matter_3t \\",
-            "      --tissue grey_matter_3t --phantom labels.png --label 1=white_matter_3t --label 2=grey_matter_3t \\",
-            "      --out brain-image"})
+            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 \\",
+            "      --center-echo 16 --tissue white_matter_3t --tissue csf:4300:1900 \\",
+            "      --noise-sd 0.01 --plot brain.png",
+            "  echotrellis image sequences/knee-t2-16.yaml --phase-lines 128 \\",
+            "      --ordering centric --format json",
+            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 192 \\",
+            "      --tissue white_matter_3t --tissue grey_matter_3t --phantom labels.png \\",
+            "      --label 1=white_matter_3t --label 2=grey_matter_3t --out brain-image"})
 public final class ImageCommand implements Callable<Integer> {
     /** Files written into --out. */
     static final String JSON_FILE = "image.json";

@@ -57,15 +57,26 @@ public final class ChartFiles {
      */
     public static void write(JFreeChart chart, Path out, int widthPx, int heightPx, boolean force) {
         boolean svg = isSvg(out);
-        AtomicFiles.write(out, force, stream -> {
-            if (svg) {
-                Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
-                w.write(svg(chart, widthPx, heightPx));
-                w.flush();
-            } else {
-                ChartUtils.writeChartAsPNG(stream, chart, widthPx, heightPx);
-            }
-        });
+        AtomicFiles.write(out, force, stream -> writeTo(stream, chart, widthPx, heightPx, svg));
+    }
+
+    /**
+     * Renders a chart and writes it to a stream. The image is encoded in memory first, so a failing
+     * stream (a full disk) surfaces as the stream's own {@link java.io.IOException} with the system's
+     * reason, not as an image-encoder error.
+     */
+    static void writeTo(java.io.OutputStream stream, JFreeChart chart, int widthPx, int heightPx, boolean svg)
+            throws java.io.IOException {
+        if (svg) {
+            Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
+            w.write(svg(chart, widthPx, heightPx));
+            w.flush();
+        } else {
+            java.io.ByteArrayOutputStream png = new java.io.ByteArrayOutputStream(1 << 17);
+            ChartUtils.writeChartAsPNG(png, chart, widthPx, heightPx);
+            png.writeTo(stream);
+            stream.flush();
+        }
     }
 
     /**

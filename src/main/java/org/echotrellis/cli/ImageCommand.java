@@ -1,7 +1,6 @@
 package org.echotrellis.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -19,6 +18,7 @@ import org.echotrellis.image.PhantomImages;
 import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
 import org.echotrellis.io.LabelImage;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.plot.ChartFiles;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.Tissue;
@@ -134,6 +134,33 @@ public final class ImageCommand implements Callable<Integer> {
             }
         }
         List<Path> targets = targets();
+        try (OutputSet set = out == null ? null : openSet(builtin)) {
+            run(builtin, figures, targets);
+            if (set != null) {
+                set.commit();
+            }
+        }
+        return 0;
+    }
+
+    /** Opens the --out set and checks every file name before any work. */
+    private OutputSet openSet(boolean builtin) {
+        OutputSet set = OutputSet.open(out, force, java.util.Arrays.asList(input.file, builtin ? null : Path.of(phantom)));
+        try {
+            List<String> names = new ArrayList<>(List.of(JSON_FILE));
+            for (String c : ImageOutputs.CHARTS) {
+                names.add(c + ".png");
+                names.add(c + ".svg");
+            }
+            set.plan(names);
+        } catch (RuntimeException e) {
+            set.close();
+            throw e;
+        }
+        return set;
+    }
+
+    private void run(boolean builtin, boolean figures, List<Path> targets) {
         Protocol p = input.load();
         List<Tissue> ts = tissues(p);
         KSpaceOrdering o = ordering(p.echoCount());
@@ -143,9 +170,6 @@ public final class ImageCommand implements Callable<Integer> {
         PrintWriter w = spec.commandLine().getOut();
         w.print(format == Format.json ? Json.write(ImageOutputs.json(report)) : ImageOutputs.table(report, p.name()));
         w.flush();
-        if (w.checkError()) {
-            throw new InputException("cannot write to standard output");
-        }
         if (figures) {
             Phantom ph = labelImage == null ? Phantom.builtin(o.lines(), ts.size()) : fromFile(labelImage, mapping, ts);
             PhantomImages img = PhantomImager.image(ph, report.tissues(), noiseSd == null ? 0 : noiseSd, seed);
@@ -164,7 +188,6 @@ public final class ImageCommand implements Callable<Integer> {
         if (out != null) {
             AtomicFiles.writeString(out.resolve(JSON_FILE), Json.write(ImageOutputs.json(report)), force);
         }
-        return 0;
     }
 
     /** The chart files to write, checked before any work; --plot and --out are exclusive. */
@@ -181,18 +204,14 @@ public final class ImageCommand implements Callable<Integer> {
                 files.add(plot.resolveSibling(stem + "-" + c + ext));
             }
         }
-        if (out != null) {
-            if (Files.exists(out) && !Files.isDirectory(out)) {
-                throw new InputException("--out " + out + " exists and is not a directory");
-            }
+        for (Path f : files) {
+            AtomicFiles.checkWritable(f, force);
+        }
+        if (out != null) {                        // checked by the output set (openSet)
             for (String c : ImageOutputs.CHARTS) {
                 files.add(out.resolve(c + ".png"));
                 files.add(out.resolve(c + ".svg"));
             }
-            AtomicFiles.checkWritable(out.resolve(JSON_FILE), force);
-        }
-        for (Path f : files) {
-            AtomicFiles.checkWritable(f, force);
         }
         return files;
     }

@@ -52,6 +52,9 @@ public final class FitCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @Mixin
+    ReportOption report;
+
     @Parameters(index = "0", paramLabel = "DATA", description = "CSV decay table or NIfTI-1 series (.nii, .nii.gz).")
     Path data;
 
@@ -142,6 +145,7 @@ public final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        report.begin(spec, force);
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
@@ -157,7 +161,7 @@ public final class FitCommand implements Callable<Integer> {
             }
             double sigma = tableSigma();
             T2Fit.Factory f = new T2Fit.Factory(options.settings(train).withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o);
+            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o, report);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -175,7 +179,7 @@ public final class FitCommand implements Callable<Integer> {
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
         new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask), protocol)
-                .run(data, mask, b1Map, b1MapUnits, n, info, o, spec.commandLine().getErr());
+                .run(data, mask, b1Map, b1MapUnits, n, info, o, spec.commandLine().getErr(), report);
         return 0;
     }
 

@@ -9,6 +9,8 @@ import java.util.Map;
 import java.util.Optional;
 
 import org.echotrellis.InputException;
+import org.echotrellis.fit.T2Fit;
+import org.echotrellis.fit.volume.FitOptions;
 import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.fit.volume.VolumeMaps;
 import org.echotrellis.io.Nifti;
@@ -21,6 +23,7 @@ import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.MapPreview;
+import org.echotrellis.report.FitReport;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
 final class FitVolumeRun {
@@ -47,7 +50,7 @@ final class FitVolumeRun {
         {"amplitude", "amplitude"}, {"status", "status code"}};
 
     VolumeMaps run(Path data, Path maskFile, Path b1File, FitCommand.B1Units b1Units, int threads,
-            Map<String, Object> info, PrintWriter o, PrintWriter err) {
+            Map<String, Object> info, PrintWriter o, PrintWriter err, ReportOption report) {
         // every header is checked (series against protocol, mask and B1 map against the series)
         // before any file is inflated or any voxel array allocated
         NiftiHeader grid = Nifti.readHeader(data);
@@ -70,6 +73,8 @@ final class FitVolumeRun {
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
             set.commit();
+            report.settings(info);
+            report.write("fit: " + data.getFileName(), force, r -> FitReport.volume(r, res, in, b1, sampleFit(maps)));
             double[] t2 = res.fittedValues("t2_ms");
             o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
                     res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
@@ -108,6 +113,13 @@ final class FitVolumeRun {
                         .filter(e -> e.getValue() > 0 && e.getKey() != VoxelStatus.OUTSIDE_MASK)
                         .map(e -> e.getValue() + " " + e.getKey().label()).collect(java.util.stream.Collectors.joining(", "))
                 + ")" + hint);
+    }
+
+    /** The run's fit factory with the noise σ actually used, to draw the sample voxels' curves. */
+    private T2Fit.Factory sampleFit(VolumeMaps maps) {
+        FitOptions opts = analysis.fitOptions().orElseThrow();
+        return new T2Fit.Factory(analysis.fitSettings().orElseThrow().withNoiseSigma(maps.noiseSigma()), opts.model(),
+                opts.compareMono());
     }
 
     private static List<String> plannedFiles(List<String> outputs) {

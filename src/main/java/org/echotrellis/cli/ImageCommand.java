@@ -60,6 +60,9 @@ public final class ImageCommand implements Callable<Integer> {
     CommandSpec spec;
 
     @Mixin
+    ReportOption htmlReport;
+
+    @Mixin
     ProtocolInput input;
 
     @Option(names = "--phase-lines", required = true, paramLabel = "L",
@@ -134,6 +137,7 @@ public final class ImageCommand implements Callable<Integer> {
             }
         }
         List<Path> targets = targets();
+        htmlReport.begin(spec, force);
         try (OutputSet set = out == null ? null : openSet(builtin)) {
             run(builtin, figures, targets);
             if (set != null) {
@@ -188,6 +192,8 @@ public final class ImageCommand implements Callable<Integer> {
         if (out != null) {
             AtomicFiles.writeString(out.resolve(JSON_FILE), Json.write(ImageOutputs.json(report)), force);
         }
+        htmlReport.settings(CommandReports.acquisition(p));
+        htmlReport.write("image: " + p.name(), force, r -> CommandReports.image(r, report, p.name()));
     }
 
     /** The chart files to write, checked before any work; --plot and --out are exclusive. */

@@ -1,7 +1,6 @@
 package org.echotrellis.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -19,6 +18,7 @@ import org.echotrellis.image.PhantomImages;
 import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
 import org.echotrellis.io.LabelImage;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.plot.ChartFiles;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.Tissue;
@@ -37,15 +37,18 @@ import picocli.CommandLine.Spec;
                 + "contrast and CNR; plot the weights, the PSFs and a simulated phantom image next to the ideal one.",
             "One phase-encoding direction; no motion, no T2* or off-resonance during the read-out."},
         footer = {"", "Tissues: a preset name, or NAME:T1_MS:T2_MS (default: the protocol's tissue).",
-            "Phantom: builtin (discs of 5 sizes, one row per tissue after the first, on the first tissue), or a label",
-            "image (.png grey values, or a .nii/.nii.gz slice) with --label VALUE=TISSUE for each label that has signal.",
+            "Phantom: builtin (discs of 5 sizes, one row per tissue after the first, on",
+            "the first tissue), or a label image (.png grey values, or a .nii/.nii.gz",
+            "slice) with --label VALUE=TISSUE for each label that has signal.",
             "", "Examples:",
-            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 --center-echo 8 \\",
-            "      --tissue white_matter_3t --tissue csf:4300:1900 --noise-sd 0.01 --plot brain.png",
-            "  echotrellis image sequences/knee-t2-16.yaml --phase-lines 128 --ordering centric --format json",
-            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 192 --tissue white_matter_3t \\",
-            "      --tissue grey_matter_3t --phantom labels.png --label 1=white_matter_3t --label 2=grey_matter_3t \\",
-            "      --out brain-image"})
+            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 \\",
+            "      --center-echo 16 --tissue white_matter_3t --tissue csf:4300:1900 \\",
+            "      --noise-sd 0.01 --plot brain.png",
+            "  echotrellis image sequences/knee-t2-16.yaml --phase-lines 128 \\",
+            "      --ordering centric --format json",
+            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 192 \\",
+            "      --tissue white_matter_3t --tissue grey_matter_3t --phantom labels.png \\",
+            "      --label 1=white_matter_3t --label 2=grey_matter_3t --out brain-image"})
 public final class ImageCommand implements Callable<Integer> {
     /** Files written into --out. */
     static final String JSON_FILE = "image.json";
@@ -135,6 +138,33 @@ public final class ImageCommand implements Callable<Integer> {
         }
         List<Path> targets = targets();
         htmlReport.begin(spec, force);
+        try (OutputSet set = out == null ? null : openSet(builtin)) {
+            run(builtin, figures, targets);
+            if (set != null) {
+                set.commit();
+            }
+        }
+        return 0;
+    }
+
+    /** Opens the --out set and checks every file name before any work. */
+    private OutputSet openSet(boolean builtin) {
+        OutputSet set = OutputSet.open(out, force, java.util.Arrays.asList(input.file, builtin ? null : Path.of(phantom)));
+        try {
+            List<String> names = new ArrayList<>(List.of(JSON_FILE));
+            for (String c : ImageOutputs.CHARTS) {
+                names.add(c + ".png");
+                names.add(c + ".svg");
+            }
+            set.plan(names);
+        } catch (RuntimeException e) {
+            set.close();
+            throw e;
+        }
+        return set;
+    }
+
+    private void run(boolean builtin, boolean figures, List<Path> targets) {
         Protocol p = input.load();
         List<Tissue> ts = tissues(p);
         KSpaceOrdering o = ordering(p.echoCount());
@@ -144,9 +174,6 @@ public final class ImageCommand implements Callable<Integer> {
         PrintWriter w = spec.commandLine().getOut();
         w.print(format == Format.json ? Json.write(ImageOutputs.json(report)) : ImageOutputs.table(report, p.name()));
         w.flush();
-        if (w.checkError()) {
-            throw new InputException("cannot write to standard output");
-        }
         if (figures) {
             Phantom ph = labelImage == null ? Phantom.builtin(o.lines(), ts.size()) : fromFile(labelImage, mapping, ts);
             PhantomImages img = PhantomImager.image(ph, report.tissues(), noiseSd == null ? 0 : noiseSd, seed);
@@ -167,7 +194,6 @@ public final class ImageCommand implements Callable<Integer> {
         }
         htmlReport.settings(CommandReports.acquisition(p));
         htmlReport.write("image: " + p.name(), force, r -> CommandReports.image(r, report, p.name()));
-        return 0;
     }
 
     /** The chart files to write, checked before any work; --plot and --out are exclusive. */
@@ -184,18 +210,14 @@ public final class ImageCommand implements Callable<Integer> {
                 files.add(plot.resolveSibling(stem + "-" + c + ext));
             }
         }
-        if (out != null) {
-            if (Files.exists(out) && !Files.isDirectory(out)) {
-                throw new InputException("--out " + out + " exists and is not a directory");
-            }
+        for (Path f : files) {
+            AtomicFiles.checkWritable(f, force);
+        }
+        if (out != null) {                        // checked by the output set (openSet)
             for (String c : ImageOutputs.CHARTS) {
                 files.add(out.resolve(c + ".png"));
                 files.add(out.resolve(c + ".svg"));
             }
-            AtomicFiles.checkWritable(out.resolve(JSON_FILE), force);
-        }
-        for (Path f : files) {
-            AtomicFiles.checkWritable(f, force);
         }
         return files;
     }

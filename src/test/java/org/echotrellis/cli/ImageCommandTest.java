@@ -100,6 +100,21 @@ class ImageCommandTest {
     }
 
     @Test
+    void outRefusesAnExistingSetAndAFile() throws Exception {
+        Path dir = Files.createDirectories(tmp.resolve("taken"));
+        Files.writeString(dir.resolve("image.json"), "earlier run");
+        CliRun r = CliRun.of("image", PROTOCOL, "--phase-lines", "32", "--out", dir.toString());
+        assertEquals(2, r.code(), r.err());
+        assertEquals("", r.out(), "refused before any work");
+        assertEquals("earlier run", Files.readString(dir.resolve("image.json")));
+        assertFalse(Files.exists(dir.resolve("psf.png")), "no partial output set");
+        Path file = Files.writeString(tmp.resolve("plain-file"), "x");
+        CliRun f = CliRun.of("image", PROTOCOL, "--phase-lines", "32", "--out", file.toString());
+        assertEquals(2, f.code(), f.err());
+        assertEquals(1, f.err().strip().lines().count(), f.err());
+    }
+
+    @Test
     void labelImagePhantomFromPng() throws Exception {
         BufferedImage img = new BufferedImage(40, 40, BufferedImage.TYPE_BYTE_GRAY);
         for (int y = 10; y < 30; y++) {
@@ -155,7 +170,7 @@ class ImageCommandTest {
     void helpHasARunnableExample() {
         CliRun r = CliRun.of("image", "--help");
         assertEquals(0, r.code());
-        assertTrue(r.out().contains("echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256"), r.out());
+        assertTrue(r.out().contains("echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 \\"), r.out());
         assertTrue(r.out().contains("--center-echo"), r.out());
     }
 }

@@ -211,14 +211,15 @@ public final class DesignCommand implements Callable<Integer> {
         DesignReport report;
         if (goal.target != null) {
             report = DesignJob.prescribed(problem, EchoTarget.parse(goal.target), Startup.parse(startup), rf, limits,
-                    reference, compare);
+                    reference, compare, org.echotrellis.design.AcquiredEchoes.forProtocol(p));
         } else {
             Objective objective = Objective.parse(goal.objective, problem, DesignCommand::presetTimes);
             if (!quiet) {
                 err.println("design: optimising " + knots + " spline knots for " + objective.spec() + " ...");
                 err.flush();
             }
-            report = DesignJob.optimised(problem, objective, rf, limits, reference, knots, maxEvaluations, compare);
+            report = DesignJob.optimised(problem, objective, rf, limits, reference, knots, maxEvaluations, compare,
+                    org.echotrellis.design.AcquiredEchoes.forProtocol(p));
         }
         PrintWriter o = spec.commandLine().getOut();
         o.print(format == Format.json ? Json.write(CliChecks.withProvenance(report.toJson(), spec, protocol))

@@ -1,5 +1,7 @@
 package org.echotrellis.design;
 
+import org.echotrellis.sequence.Tissue;
+
 /**
  * Predicted echoes of one tissue under a designed schedule, next to the same tissue under the
  * all-180° train. Arrays are copied on the way in and out.
@@ -9,8 +11,14 @@ package org.echotrellis.design;
  * @param t2Ms T2 in ms
  * @param echoes |echo| per echo under the schedule
  * @param echoes180 |echo| per echo under all-180° refocusing
+ * @param echoModel {@link #IDEAL} or {@link #ACQUISITION}: which model gave the echoes
  */
-public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes, double[] echoes180) {
+public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes, double[] echoes180, String echoModel) {
+    /** Echoes of the ideal-pulse CPMG model the schedule is designed on. */
+    public static final String IDEAL = "ideal_pulses";
+    /** Echoes of the protocol's acquisition model (slice profile, TR, diffusion). */
+    public static final String ACQUISITION = "acquisition";
+
     /** Copies the arrays. */
     public Comparison {
         echoes = echoes.clone();
@@ -48,6 +56,21 @@ public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes,
             e[i] = Math.abs(e[i]);
             full[i] = Math.abs(full[i]);
         }
-        return new Comparison(name, t1Ms, t2Ms, e, full);
+        return new Comparison(name, t1Ms, t2Ms, e, full, IDEAL);
+    }
+
+    /**
+     * The same comparison through the protocol's acquisition model.
+     *
+     * @param acquired the acquisition model of the protocol
+     * @param tissue the tissue (with its diffusivity)
+     * @param flipsDeg nominal refocusing flips (not modified)
+     * @return the comparison
+     */
+    public static Comparison acquired(AcquiredEchoes acquired, Tissue tissue, double[] flipsDeg) {
+        double[] f180 = new double[flipsDeg.length];
+        java.util.Arrays.fill(f180, 180);
+        return new Comparison(tissue.name(), tissue.t1Ms(), tissue.t2Ms(), acquired.magnitudes(flipsDeg, tissue),
+                acquired.magnitudes(f180, tissue), ACQUISITION);
     }
 }

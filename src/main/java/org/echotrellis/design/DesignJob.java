@@ -28,6 +28,26 @@ public final class DesignJob {
      */
     public static DesignReport prescribed(DesignProblem p, EchoTarget target, Startup startup, RfExposure rf,
                                           ExposureLimits limits, SarReference reference, List<Tissue> compare) {
+        return prescribed(p, target, startup, rf, limits, reference, compare, null);
+    }
+
+    /**
+     * Prescribed-signal design whose tissue echoes are reported as the protocol acquires them.
+     *
+     * @param p train, design tissue, flip bounds
+     * @param target prescribed echo amplitudes
+     * @param startup start-up stabilisation
+     * @param rf pulse model
+     * @param limits limits to report against
+     * @param reference SAR reference, or null
+     * @param compare comparison tissues
+     * @param acquired the protocol's acquisition model ({@link AcquiredEchoes#forProtocol}), or null for
+     *        ideal pulses; the schedule is solved on the ideal-pulse model either way
+     * @return the report
+     */
+    public static DesignReport prescribed(DesignProblem p, EchoTarget target, Startup startup, RfExposure rf,
+                                          ExposureLimits limits, SarReference reference, List<Tissue> compare,
+                                          AcquiredEchoes acquired) {
         checkLimits(limits, rf, reference);
         double[] amplitudes = target.amplitudes(p);
         FlipInverter inverter = new FlipInverter();
@@ -39,7 +59,7 @@ public final class DesignJob {
         return new DesignReport("target", target.spec(), p, flips, inv.predicted(), inv.effectiveTarget(),
                 inv.startupEchoes(), inv.firstUnreachableEcho(), inv.unreachableEchoes(), scale, budgetScale,
                 Double.NaN, Double.NaN, Double.NaN, exposure(p, flips, rf, limits, reference),
-                comparisons(p, flips, compare));
+                comparisons(p, flips, compare, acquired));
     }
 
     /**
@@ -57,6 +77,27 @@ public final class DesignJob {
      */
     public static DesignReport optimised(DesignProblem p, Objective objective, RfExposure rf, ExposureLimits limits,
                                          SarReference reference, int knots, int maxEvaluations, List<Tissue> compare) {
+        return optimised(p, objective, rf, limits, reference, knots, maxEvaluations, compare, null);
+    }
+
+    /**
+     * Budgeted optimisation whose tissue echoes are reported as the protocol acquires them.
+     *
+     * @param p train, design tissue, flip bounds
+     * @param objective what to maximise
+     * @param rf pulse model
+     * @param limits SAR budget and B1+rms limit (met by the result)
+     * @param reference SAR reference, or null
+     * @param knots spline knots
+     * @param maxEvaluations evaluations per optimiser start
+     * @param compare comparison tissues
+     * @param acquired the protocol's acquisition model ({@link AcquiredEchoes#forProtocol}), or null for
+     *        ideal pulses; the schedule is optimised on the ideal-pulse model either way
+     * @return the report
+     */
+    public static DesignReport optimised(DesignProblem p, Objective objective, RfExposure rf, ExposureLimits limits,
+                                         SarReference reference, int knots, int maxEvaluations, List<Tissue> compare,
+                                         AcquiredEchoes acquired) {
         checkLimits(limits, rf, reference);
         OptimizedSchedule r = new ScheduleOptimizer().optimize(p, objective, limits, rf, knots, maxEvaluations);
         double[] flips = r.flipsDeg();
@@ -65,7 +106,7 @@ public final class DesignJob {
                 flips, predicted);
         return new DesignReport("objective", objective.spec(), p, flips, predicted, new double[0], 0, 0, 0, Double.NaN,
                 Double.NaN, r.objective(), r.constantFlipDeg(), r.constantObjective(), exposure(p, flips, rf, limits, reference),
-                comparisons(p, flips, compare));
+                comparisons(p, flips, compare, acquired));
     }
 
     /**
@@ -131,8 +172,18 @@ public final class DesignJob {
                 rf.slices());
     }
 
-    private static List<Comparison> comparisons(DesignProblem p, double[] flips, List<Tissue> compare) {
+    private static List<Comparison> comparisons(DesignProblem p, double[] flips, List<Tissue> compare,
+                                                AcquiredEchoes acquired) {
         List<Comparison> out = new ArrayList<>();
+        if (acquired != null) {
+            Tissue design = acquired.designTissue();
+            out.add(Comparison.acquired(acquired, new Tissue(p.tissueName(), p.t1Ms(), p.t2Ms(),
+                    design.diffusivityMm2PerS()), flips));
+            for (Tissue t : compare) {
+                out.add(Comparison.acquired(acquired, t, flips));
+            }
+            return out;
+        }
         out.add(Comparison.of(p, p.tissueName(), p.t1Ms(), p.t2Ms(), flips));
         for (Tissue t : compare) {
             out.add(Comparison.of(p, t.name(), t.t1Ms(), t.t2Ms(), flips));

@@ -93,6 +93,7 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
             t.put("t2_ms", c.t2Ms());
             t.put("echoes", c.echoes());
             t.put("echoes_180", c.echoes180());
+            t.put("echo_model", c.echoModel());
             tissues.add(t);
         }
         m.put("tissues", tissues);

@@ -50,6 +50,9 @@ public final class DesignCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 
+    @Mixin
+    PlotOptions plotOptions;
+
     @Spec
     CommandSpec spec;
 

@@ -50,6 +50,12 @@ public final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 
+    @Mixin
+    PlotOptions plotOptions;
+
+    @Mixin
+    MapOptions mapOptions;
+
     @Spec
     CommandSpec spec;
 
@@ -108,7 +114,7 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--compare-mono", description = "Also fit the mono-exponential model (map mono_t2_ms).")
     boolean compareMono;
 
-    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table", description = "CSV input: table or json on stdout (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table", description = "Stdout: table or json; for NIfTI input json prints the run summary (default: ${DEFAULT-VALUE}).")
     Format format;
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "t2-fit", description = "Output directory (default: ${DEFAULT-VALUE}).")
@@ -163,7 +169,7 @@ public final class FitCommand implements Callable<Integer> {
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
         new FitVolumeRun(settings, model, compareMono, noiseSigma, out, force, quiet)
-                .run(data, mask, b1Map, n, info, o, spec.commandLine().getErr());
+                .run(data, mask, b1Map, n, info, format == Format.json, o, spec.commandLine().getErr());
         return 0;
     }
 

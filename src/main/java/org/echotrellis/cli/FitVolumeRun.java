@@ -23,6 +23,7 @@ import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumePipeline;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.MapPreview;
+import org.echotrellis.plot.PlotSettings;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
 final class FitVolumeRun {
@@ -45,13 +46,15 @@ final class FitVolumeRun {
         this.quiet = quiet;
     }
 
-    /** Map names that get a PNG preview, with their colour-bar labels. */
+    /** Map names that get a PNG and SVG preview, with their titles and colour-bar labels. */
     private static final String[][] PREVIEWS = {
-        {"t2_ms", "T2 (ms)"}, {"mono_t2_ms", "mono-exponential T2 (ms)"}, {"b1_scale", "B1 scale"},
-        {"amplitude", "amplitude"}, {"status", "status code"}};
+        {"t2_ms", "T2, EPG fit", "T2 (ms)"}, {"mono_t2_ms", "T2, mono-exponential fit", "T2 (ms)"},
+        {"b1_scale", "B1 scale", "B1 scale"}, {"amplitude", "Amplitude", "amplitude"}, {"status", "Voxel status", ""}};
+    /** Figure formats of every preview. */
+    private static final String[] FORMATS = {".png", ".svg"};
 
-    VolumeResult run(Path data, Path maskFile, Path b1File, int threads, Map<String, Object> info, PrintWriter o,
-            PrintWriter err) {
+    VolumeResult run(Path data, Path maskFile, Path b1File, int threads, Map<String, Object> info, boolean json,
+            PrintWriter o, PrintWriter err) {
         Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
         Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read);
         try (NiftiInput in = Nifti.open(data)) {
@@ -71,13 +74,17 @@ final class FitVolumeRun {
             for (Path f : files) {
                 AtomicFiles.checkWritable(f, force);
             }
-            VolumeResult res = VolumePipeline.run(job, factory, new StderrProgressBar(err, quiet));
+            VolumeResult res = VolumePipeline.run(job, factory, StderrProgressBar.onTerminal(err, quiet));
             res.writeMaps(outDir, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
             double[] t2 = res.fittedValues("t2_ms");
-            o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
-                    res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
+            if (json) {
+                o.println(org.echotrellis.io.Json.write(RunSummary.build(res, info)).strip());
+            } else {
+                o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
+                        res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
+            }
             o.flush();
             return res;
         }
@@ -92,7 +99,9 @@ final class FitVolumeRun {
         f.add(outDir.resolve("summary.json"));
         for (String[] p : PREVIEWS) {
             if (outputs.contains(p[0]) || p[0].equals("status")) {
-                f.add(outDir.resolve(p[0] + ".png"));
+                for (String ext : FORMATS) {
+                    f.add(outDir.resolve(p[0] + ext));
+                }
             }
         }
         return f;
@@ -102,31 +111,41 @@ final class FitVolumeRun {
         int nx = h.size(1);
         int ny = h.size(2);
         int nz = h.size(3);
-        double[] t2 = res.fittedValues("t2_ms");
-        double lo = RunSummary.percentile(t2, 2);
-        double hi = RunSummary.percentile(t2, 98);
+        double[] t2Range = sharedT2Range(res);
         for (String[] p : PREVIEWS) {
-            float[] map;
-            double a = Double.NaN;
-            double b = Double.NaN;
-            if (p[0].equals("status")) {
-                byte[] s = res.status();
-                map = new float[s.length];
-                for (int i = 0; i < s.length; i++) {
-                    map[i] = s[i];
+            for (String ext : FORMATS) {
+                Path file = outDir.resolve(p[0] + ext);
+                if (p[0].equals("status")) {
+                    MapPreview.writeCentralCategories(file, res.status(), nx, ny, nz, p[1], StatusColours.CATEGORIES, force);
+                } else if (res.names().contains(p[0])) {
+                    double[] r = p[0].endsWith("t2_ms") ? t2Range : new double[] {Double.NaN, Double.NaN};
+                    MapPreview.writeCentralSlice(file, res.map(p[0]), nx, ny, nz, p[1], p[2], r[0], r[1], force);
                 }
-                a = 0;
-                b = 5;
-            } else if (res.names().contains(p[0])) {
-                map = res.map(p[0]);
-                if (p[0].endsWith("t2_ms")) {
-                    a = lo;
-                    b = hi;
-                }
-            } else {
-                continue;
             }
-            MapPreview.writeCentralSlice(outDir.resolve(p[0] + ".png"), map, nx, ny, nz, p[1], p[1], a, b, force);
         }
+    }
+
+    /**
+     * One colour range for the T2 maps (EPG and mono-exponential), so that the bias the comparison
+     * exists to show is not clipped: {@code --display-range}, or from the lowest 2nd to the highest
+     * 98th percentile of the fitted voxels of both maps.
+     */
+    private static double[] sharedT2Range(VolumeResult res) {
+        PlotSettings ps = PlotSettings.current();
+        if (ps.hasDisplayRange()) {
+            return new double[] {ps.displayLo(), ps.displayHi()};
+        }
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (String name : new String[] {"t2_ms", "mono_t2_ms"}) {
+            if (res.names().contains(name)) {
+                double[] v = res.fittedValues(name);
+                if (v.length > 0) {
+                    lo = Math.min(lo, RunSummary.percentile(v, 2));
+                    hi = Math.max(hi, RunSummary.percentile(v, 98));
+                }
+            }
+        }
+        return lo <= hi ? new double[] {lo, hi} : new double[] {Double.NaN, Double.NaN};
     }
 }

@@ -41,6 +41,9 @@ public final class PathwaysCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 
+    @Mixin
+    PlotOptions plotOptions;
+
     @Spec
     CommandSpec spec;
 

@@ -43,6 +43,12 @@ public final class SpectrumCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 
+    @Mixin
+    PlotOptions plotOptions;
+
+    @Mixin
+    MapOptions mapOptions;
+
     @Spec
     CommandSpec spec;
 
@@ -124,7 +130,8 @@ public final class SpectrumCommand implements Callable<Integer> {
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
             SpectrumVolumes.run(data, mask, cache, options, n, out, force, settings,
-                    new StderrProgressBar(spec.commandLine().getErr(), quiet), spec.commandLine().getOut());
+                    StderrProgressBar.onTerminal(spec.commandLine().getErr(), quiet), format == Format.json,
+                    spec.commandLine().getOut());
         } else {
             Checks.require(mask == null, "--mask applies to image input only; DATA " + data + " is a table");
             SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings, spec.commandLine().getOut());

@@ -66,14 +66,17 @@ final class SpectrumDemo implements DemoSection {
         }
         double seconds = (System.nanoTime() - t0) * 1e-9;
         String win = String.format(Locale.ROOT, "%.0f–%.0f ms", o.windows().get(0).loMs(), o.windows().get(0).hiMs());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-map.png"), fraction, NX, NY, 1,
-                "Fitted short-T2 fraction (" + win + ")", "fraction", 0, 0.3, ctx.force());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-truth.png"), fractionTrue, NX, NY, 1,
-                "True short-T2 fraction (phantom)", "fraction", 0, 0.3, ctx.force());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-map.png"), angle, NX, NY, 1,
-                "Fitted refocusing angle", "angle (deg)", 130, 180, ctx.force());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-truth.png"), angleTrue, NX, NY, 1,
-                "True refocusing angle (180° × B1)", "angle (deg)", 130, 180, ctx.force());
+        for (String ext : new String[] {".png", ".svg"}) {
+            MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-map" + ext), fraction, NX, NY, 1,
+                    "Fitted short-T2 fraction (" + win + ")", "fraction", 0, 0.3, ctx.force());
+            MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-truth" + ext), fractionTrue, NX, NY, 1,
+                    "True short-T2 fraction (phantom)", "fraction", 0, 0.3, ctx.force());
+            MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-map" + ext), angle, NX, NY, 1,
+                    "Fitted refocusing angle", "angle (deg)", 130, 180, ctx.force());
+            MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-truth" + ext), angleTrue, NX, NY, 1,
+                    "True refocusing angle (180° × B1)", "angle (deg)", 130, 180, ctx.force());
+        }
+        ctx.log(String.format(Locale.ROOT, "spectrum slice: %d voxels in %.2f s on one thread", fitted, seconds));
         int[] picks = {pick(ph, SpectrumPhantom.TRACT), pick(ph, SpectrumPhantom.WHITE), pick(ph, SpectrumPhantom.GREY)};
         String[] labels = {"dense tract", "white matter", "cortex"};
         List<String> names = new ArrayList<>();
@@ -100,8 +103,7 @@ final class SpectrumDemo implements DemoSection {
                         + "ESP 10 ms): a short-T2 pool (18 ms) in \"white matter\" (about 11 %%) and a denser tract "
                         + "(22 %%), cortex 3 %%, fluid-filled \"ventricles\"; B1 falls from 0.98 at the centre to about "
                         + "0.76 at the rim; Rician magnitude noise, SNR %.0f in white matter. Default `spectrum` settings "
-                        + "(40 bins 10–2000 ms, 8 angles 50–180°, χ² factor 1.02, window 10–40 ms). %d voxels in %.2f s "
-                        + "on one thread.%n%n", NX, NY, SNR, fitted, seconds))
+                        + "(40 bins 10–2000 ms, 8 angles 50–180°, χ² factor 1.02, window 10–40 ms).%n%n", NX, NY, SNR))
                 .append("| region | voxels | true fraction | fitted fraction, median (IQR) | |fitted − true angle|, median |\n")
                 .append("|---|---|---|---|---|\n");
         String[] names = {"", "cortex", "white matter", "dense tract", "ventricles"};

@@ -22,6 +22,7 @@ import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumePipeline;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.MapPreview;
+import org.echotrellis.plot.PlotSettings;
 
 /**
  * Image input of {@code spectrum}: runs the fit over the volume (slab streaming, mask, threads and
@@ -30,11 +31,14 @@ import org.echotrellis.plot.MapPreview;
  * Memory: the input is streamed; outputs are held as float32, (bins + maps) · 4 bytes per voxel.
  */
 final class SpectrumVolumes {
+    /** Figure formats of every map preview. */
+    private static final String[] PREVIEW_FORMATS = {".png", ".svg"};
+
     private SpectrumVolumes() { }
 
     static VolumeResult run(Path data, Path mask, BasisCache cache, SpectrumOptions o, int threads, Path out,
                             boolean force, Map<String, Object> settings, ProgressReporter progress,
-                            PrintWriter stdout) throws Exception {
+                            boolean json, PrintWriter stdout) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
@@ -48,15 +52,20 @@ final class SpectrumVolumes {
             refuseExisting(out, o, force);
             Files.createDirectories(out);
             VolumeResult r = VolumePipeline.run(job, new SpectrumKernel.Factory(cache, o), progress);
-            write(r, o, out, force, settings);
-            stdout.printf(Locale.ROOT, "spectrum: %d voxels fitted in %.1f s (%.0f voxels/s); outputs in %s%n",
-                    r.processed(), r.seconds(), r.voxelsPerSecond(), out);
+            Map<String, Object> s = write(r, o, out, force, settings);
+            if (json) {
+                stdout.println(org.echotrellis.io.Json.write(RunSummary.build(r, s)).strip());
+            } else {
+                stdout.printf(Locale.ROOT, "spectrum: %d voxels fitted in %.1f s (%.0f voxels/s); outputs in %s%n",
+                        r.processed(), r.seconds(), r.voxelsPerSecond(), out);
+            }
             stdout.flush();
             return r;
         }
     }
 
-    private static void write(VolumeResult r, SpectrumOptions o, Path out, boolean force, Map<String, Object> settings) {
+    private static Map<String, Object> write(VolumeResult r, SpectrumOptions o, Path out, boolean force,
+            Map<String, Object> settings) {
         NiftiHeader h = r.mapHeader();
         int nx = h.size(1);
         int ny = h.size(2);
@@ -79,16 +88,48 @@ final class SpectrumVolumes {
             codes[i] = status[i];
         }
         Nifti.write(out.resolve("status.nii.gz"), h.withDatatype(org.echotrellis.io.NiftiDatatype.UINT8), codes, force);
+        double fractionHi = sharedEnd(r, scalars, "fraction_", 98);
+        double gmLo = sharedEnd(r, scalars, "gm_t2_", 2);
+        double gmHi = sharedEnd(r, scalars, "gm_t2_", 98);
+        PlotSettings ps = PlotSettings.current();
         for (String name : scalars) {
             if (name.equals("chi2_unregularised")) {
                 continue;
             }
-            MapPreview.writeCentralSlice(out.resolve(name + ".png"), r.map(name), nx, ny, nz, title(name), unit(name),
-                    name.startsWith("fraction_") ? 0 : Double.NaN, Double.NaN, force);
+            double lo = Double.NaN;
+            double hi = Double.NaN;
+            if (name.startsWith("fraction_")) {
+                // the window fractions share one range (from 0), or --display-range
+                lo = ps.hasDisplayRange() ? ps.displayLo() : 0;
+                hi = ps.hasDisplayRange() ? ps.displayHi() : fractionHi;
+            } else if (name.startsWith("gm_t2_")) {
+                lo = gmLo;
+                hi = gmHi;
+            }
+            for (String ext : PREVIEW_FORMATS) {
+                MapPreview.writeCentralSlice(out.resolve(name + ext), r.map(name), nx, ny, nz, title(name), unit(name),
+                        lo, hi, force);
+            }
         }
         Map<String, Object> s = new LinkedHashMap<>(settings);
         s.put("outputs", outputs(scalars));
         RunSummary.write(out.resolve("summary.json"), r, s, force);
+        return s;
+    }
+
+    /**
+     * The lowest 2nd ({@code q} = 2) or highest 98th ({@code q} = 98) percentile over the maps whose
+     * name starts with {@code prefix}, so that comparable maps share one colour range (NaN if none).
+     */
+    private static double sharedEnd(VolumeResult r, List<String> scalars, String prefix, int q) {
+        double end = Double.NaN;
+        for (String n : scalars) {
+            if (n.startsWith(prefix) && r.fittedValues(n).length > 0) {
+                double v = RunSummary.percentile(r.fittedValues(n), q);
+                end = Double.isNaN(end) ? v : q < 50 ? Math.min(end, v) : Math.max(end, v);
+            }
+        }
+        return end;
     }
 
     /** Fails before any work if an output exists and --force is not given (same message as the writer). */
@@ -100,6 +141,7 @@ final class SpectrumVolumes {
         for (String n : SpectrumNames.scalars(o)) {
             names.add(n + ".nii.gz");
             names.add(n + ".png");
+            names.add(n + ".svg");
         }
         for (String n : names) {
             Path f = out.resolve(n);

@@ -138,6 +138,7 @@ public final class ChartFiles {
         SVGGeneratorContext ctx = SVGGeneratorContext.createDefault(doc);
         ctx.setComment("echotrellis");
         ctx.setPrecision(4);
+        ctx.setImageHandler(new PngImages());
         SVGGraphics2D g = new SVGGraphics2D(ctx, false);
         g.setSVGCanvasSize(new Dimension((int) Math.round(widthPx * scale), (int) Math.round(heightPx * scale)));
         g.scale(scale, scale);
@@ -151,5 +152,21 @@ public final class ChartFiles {
             g.dispose();
         }
         return sw.toString();
+    }
+
+    /**
+     * Embeds raster images (map previews) in the SVG as base64 PNG data written with the JDK's own
+     * PNG encoder, so no extra image codec library is needed.
+     */
+    private static final class PngImages extends org.apache.batik.svggen.ImageHandlerBase64Encoder {
+        @Override
+        public void encodeImage(java.awt.image.RenderedImage img, java.io.OutputStream os)
+                throws org.apache.batik.svggen.SVGGraphics2DIOException {
+            try {
+                ImageIO.write(img, "png", os);
+            } catch (java.io.IOException e) {
+                throw new org.apache.batik.svggen.SVGGraphics2DIOException(e);
+            }
+        }
     }
 }

@@ -150,6 +150,12 @@ public final class LineChart {
             plot = new XYPlot(data, x, y, r);
         }
         plot.setOrientation(PlotOrientation.VERTICAL);
+        if (logX) {
+            // faint lines at 2, 3, ... 9 times each decade make the logarithmic scale readable
+            plot.setDomainMinorGridlinesVisible(true);
+            plot.setDomainMinorGridlinePaint(new java.awt.Color(0xEEECE6));
+            plot.setDomainMinorGridlineStroke(new java.awt.BasicStroke(0.5f));
+        }
         JFreeChart chart = new JFreeChart(title, ChartStyle.TITLE_FONT, plot, true);
         if (subtitle != null) {
             chart.addSubtitle(new TextTitle(subtitle));
@@ -173,6 +179,7 @@ public final class LineChart {
             }
         }
         x.setMinorTickMarksVisible(true);
+        x.setMinorTickMarkOutsideLength(3);
         x.setMinorTickCount(9);
         if (hi / lo >= 10) {
             x.setAutoTickUnitSelection(false);

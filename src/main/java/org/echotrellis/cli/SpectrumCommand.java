@@ -34,10 +34,13 @@ import picocli.CommandLine.Spec;
             "Image input (.nii/.nii.gz, 4-D x,y,z,echo) writes spectrum.nii.gz (one volume per T2 bin), maps, "
                 + "status, PNG previews and summary.json into --out."},
         footer = {"", "Examples:",
-            "  echotrellis spectrum decays.csv --protocol sequences/brain-mwi-32.yaml \\",
-            "      --format json",
-            "  echotrellis spectrum brain.nii.gz --protocol sequences/brain-mwi-32.yaml \\",
-            "      --mask brain_mask.nii.gz --fraction-window-ms 10:40 --out mwf",
+            "  java -jar target/echotrellis.jar spectrum \\",
+            "      sequences/brain-mwi-32-decays.csv \\",
+            "      --protocol sequences/brain-mwi-32.yaml --format json",
+            "  java -jar target/echotrellis.jar demo   # writes plots/phantom-*.nii.gz",
+            "  java -jar target/echotrellis.jar spectrum plots/phantom-series.nii.gz \\",
+            "      --protocol sequences/brain-mwi-32.yaml \\",
+            "      --mask plots/phantom-mask.nii.gz --fraction-window-ms 10:40 --out mwf",
             "", "Research tool, not a medical device."})
 public final class SpectrumCommand implements Callable<Integer> {
     @Mixin

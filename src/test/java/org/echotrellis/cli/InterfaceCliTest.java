@@ -158,6 +158,32 @@ class InterfaceCliTest {
     }
 
     @Test
+    void volumeSpectrumPrintsItsSummaryAsJsonAndWritesSvgPreviews() throws IOException {
+        int nv = 4;
+        CpmgTrain train = CpmgTrain.constant(32, 10, 180);
+        double[] data = new double[nv * 32];
+        for (int v = 0; v < nv; v++) {
+            double[] fast = new CpmgEngine(1).echoes(train, 1000, 20, 0.9);
+            double[] slow = new CpmgEngine(1).echoes(train, 1000, 80 + 5 * v, 0.9);
+            for (int k = 0; k < 32; k++) {
+                data[k * nv + v] = 100 * Math.abs(0.15 * fast[k] + 0.85 * slow[k]);
+            }
+        }
+        Path series = dir.resolve("sp.nii");
+        Nifti.write(series, NiftiHeader.create(NiftiDatatype.FLOAT32, 2, 2, 1, 32), data, false);
+        Path out = dir.resolve("sp");
+        CliRun r = CliRun.of("spectrum", series.toString(), "--protocol", "sequences/brain-mwi-32.yaml", "--out",
+                out.toString(), "--format", "json", "--quiet");
+        assertEquals(0, r.code(), r.err());
+        JsonNode j = Json.MAPPER.readTree(r.out());
+        assertEquals(nv, j.get("voxels_processed").asInt());
+        try (java.util.stream.Stream<Path> files = Files.list(out)) {
+            long svg = files.filter(f -> f.toString().endsWith(".svg")).count();
+            assertTrue(svg >= 3, "map previews as SVG: " + svg);
+        }
+    }
+
+    @Test
     void designOverTheLimitsFailsUnlessAskedAndTheFileRecordsTheLimits() throws IOException {
         String[] base = {"design", "--protocol", "sequences/fse-variable-1p5t.yaml", "--target", "constant:0.4",
             "--sar-budget", "0.1"};

@@ -1,5 +1,11 @@
 package org.echotrellis.cli;
 
+import java.util.Optional;
+
+import org.echotrellis.io.NiftiImage;
+import org.echotrellis.io.NiftiInput;
+import org.echotrellis.io.VolumeJob;
+
 import org.echotrellis.InputException;
 
 /** Validation of command-line option values; messages name the option. */
@@ -25,5 +31,62 @@ final class CliChecks {
             throw new InputException("--threads must be within [1, 1024], got " + n);
         }
         return n;
+    }
+
+    /**
+     * Builds a volume job; a mask or B1 map on another grid is reported under its option name.
+     */
+    static VolumeJob volumeJob(NiftiInput in, Optional<NiftiImage> mask, Optional<NiftiImage> b1, int threads) {
+        try {
+            return new VolumeJob(in, mask, b1, threads, VolumeJob.DEFAULT_SLAB_VALUES);
+        } catch (InputException e) {
+            String m = e.getMessage();
+            if (m.startsWith("mask ")) {
+                throw new InputException("--mask " + m.substring(5), e);
+            }
+            if (m.startsWith("B1 map ")) {
+                throw new InputException("--b1-map " + m.substring(7), e);
+            }
+            throw e;
+        }
+    }
+
+    /**
+     * @param text value of an outside-mask fill option: {@code nan} or a number
+     * @return the fill value
+     */
+    static float outsideMaskValue(String text) {
+        String t = text.trim();
+        if (t.equalsIgnoreCase("nan")) {
+            return Float.NaN;
+        }
+        try {
+            float v = Float.parseFloat(t);
+            if (Float.isFinite(v)) {
+                return v;
+            }
+        } catch (NumberFormatException e) {
+            // refused below
+        }
+        throw new InputException("--outside-mask-value must be nan or a finite number (e.g. 0), got " + text);
+    }
+
+    /** Library parameter names (summary keys) of the fit and spectrum settings, with their options. */
+    private static final String[] KEYS = {"t2_min_ms", "t2_max_ms", "t1_ms", "b1_min", "b1_max", "noise_sigma"};
+
+    /**
+     * Builds library settings; an input error naming a parameter by its summary key (e.g.
+     * {@code t2_max_ms}) is reported under the option of the same name ({@code --t2-max-ms}).
+     */
+    static <T> T asOptions(java.util.function.Supplier<T> build) {
+        try {
+            return build.get();
+        } catch (InputException e) {
+            String m = e.getMessage();
+            for (String k : KEYS) {
+                m = m.replaceAll("\\b" + k + "\\b", "--" + k.replace('_', '-'));
+            }
+            throw new InputException(m, e);
+        }
     }
 }

@@ -2,9 +2,7 @@ package org.echotrellis.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.LinkedHashMap;
-import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -12,10 +10,9 @@ import java.util.concurrent.Callable;
 import org.echotrellis.InputException;
 import org.echotrellis.epg.CpmgTrain;
 import org.echotrellis.fit.FitModel;
-import org.echotrellis.fit.FitSettings;
-import org.echotrellis.fit.SliceProfile;
-import org.echotrellis.fit.SliceProfiles;
 import org.echotrellis.fit.T2Fit;
+import org.echotrellis.fit.volume.FitOptions;
+import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
 import picocli.CommandLine.Command;
@@ -79,6 +76,14 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--b1-map", paramLabel = "FILE", description = "3-D NIfTI B1 map (flip-angle scale): B1 is fixed per voxel.")
     Path b1Map;
 
+    @Option(names = "--b1-map-units", paramLabel = "U", defaultValue = "scale",
+            description = "Values of --b1-map: scale (1 = nominal) or percent (100 = nominal) (default: ${DEFAULT-VALUE}).")
+    B1Units b1MapUnits;
+
+    @Option(names = "--outside-mask-value", paramLabel = "V", defaultValue = "nan",
+            description = "Value of the maps outside the mask: nan or a number such as 0 (default: ${DEFAULT-VALUE}).")
+    String outsideMask;
+
     @Option(names = "--slice-profile", paramLabel = "P", defaultValue = "none",
             description = "none, sinc:TBW, gauss:TBW or a pulse-envelope file (one amplitude per line); Bloch-simulated (default: ${DEFAULT-VALUE}).")
     String sliceProfile;
@@ -134,6 +139,9 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar.")
     boolean quiet;
 
+    /** Units of a B1 map file. */
+    enum B1Units { scale, percent }
+
     /** Stdout formats for decay tables. */
     enum Format { table, json }
 
@@ -142,9 +150,8 @@ public final class FitCommand implements Callable<Integer> {
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
-        SliceProfile profile = SliceProfiles.parse(sliceProfile, train, slicePositions, refocusRatio);
-        FitSettings settings = new FitSettings(train, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, true, Double.NaN, profile,
-                monoOffset, monoSkipFirst);
+        FitOptions options = CliChecks.asOptions(() -> new FitOptions(model, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, true,
+                Double.NaN, false, sliceProfile, slicePositions, refocusRatio, monoOffset, monoSkipFirst, compareMono));
         String name = data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean volume = name.endsWith(".nii") || name.endsWith(".nii.gz");
         PrintWriter o = spec.commandLine().getOut();
@@ -153,28 +160,26 @@ public final class FitCommand implements Callable<Integer> {
                 throw new InputException("--mask and --b1-map apply to NIfTI volumes, not to the decay table " + data);
             }
             double sigma = tableSigma();
-            T2Fit.Factory f = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, true);
+            T2Fit.Factory f = new T2Fit.Factory(options.settings(train).withNoiseSigma(sigma), model, true);
             new FitTableRun(f, p, out, force).run(data, format == Format.json, o);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
+        if (noiseSigma != null) {
+            options = noiseSigma.equals("auto") ? options.withNoise(Double.NaN, true)
+                    : options.withNoise(parseSigma(noiseSigma), false);
+        }
+        VolumeAnalysis analysis = VolumeAnalysis.fit(p, options);
         Map<String, Object> info = new LinkedHashMap<>();
         info.put("data", data.toString());
         info.put("protocol", p.name());
-        info.put("model", model.name().toLowerCase(Locale.ROOT));
-        info.put("echoes", train.echoes());
-        info.put("echo_spacing_ms", train.echoSpacingMs());
-        info.put("t1_ms", t1Ms);
-        info.put("t2_bounds_ms", List.of(t2MinMs, t2MaxMs));
-        info.put("b1_bounds", List.of(b1Min, settings.effectiveB1Max()));
-        info.put("b1_folded", settings.foldActive());
-        info.put("slice_profile", profile.label());
-        info.put("slice_positions", profile.positions());
+        info.putAll(analysis.describe());
         info.put("b1_map", b1Map == null ? null : b1Map.toString());
+        info.put("b1_map_units", b1MapUnits.name());
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
-        new FitVolumeRun(settings, model, compareMono, noiseSigma, out, force, quiet)
-                .run(data, mask, b1Map, n, info, format == Format.json, o, spec.commandLine().getErr());
+        new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask))
+                .run(data, mask, b1Map, b1MapUnits, n, info, format == Format.json, o, spec.commandLine().getErr());
         return 0;
     }
 

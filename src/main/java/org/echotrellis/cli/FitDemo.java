@@ -86,9 +86,11 @@ final class FitDemo implements DemoSection {
                 }
             }
         }
-        NiftiHeader h = NiftiHeader.create(NiftiDatatype.FLOAT32, N, N, SLICES, e).withVoxelSize(1, 1, 4);
+        // scanner-space geometry of our own: 1 × 1 × 4 mm voxels, grid centred on the isocentre (RAS+)
+        double[] affine = {1, 0, 0, -(N - 1) / 2.0, 0, 1, 0, -(N - 1) / 2.0, 0, 0, 4, -(SLICES - 1) * 2.0};
+        NiftiHeader h = NiftiHeader.create(NiftiDatatype.FLOAT32, N, N, SLICES, e).withAffine(affine, 1);
         Nifti.write(ctx.file("phantom-series.nii.gz"), h, series, ctx.force());
-        NiftiHeader hm = NiftiHeader.create(NiftiDatatype.UINT8, N, N, SLICES).withVoxelSize(1, 1, 4);
+        NiftiHeader hm = NiftiHeader.create(NiftiDatatype.UINT8, N, N, SLICES).withAffine(affine, 1);
         Nifti.write(ctx.file("phantom-mask.nii.gz"), hm, mask, ctx.force());
 
         VolumeResult res;

@@ -9,41 +9,33 @@ import java.util.Map;
 import java.util.Optional;
 
 import org.echotrellis.InputException;
-import org.echotrellis.fit.FitModel;
-import org.echotrellis.fit.FitSettings;
-import org.echotrellis.fit.T2Fit;
+import org.echotrellis.fit.volume.VolumeAnalysis;
+import org.echotrellis.fit.volume.VolumeMaps;
 import org.echotrellis.io.AtomicFiles;
-import org.echotrellis.io.BackgroundNoise;
 import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
-import org.echotrellis.io.VolumePipeline;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.MapPreview;
 import org.echotrellis.plot.PlotSettings;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
 final class FitVolumeRun {
-    private final FitSettings settings;
-    private final FitModel model;
-    private final boolean compareMono;
-    private final String noiseSigma;
+    private final VolumeAnalysis analysis;
     private final Path outDir;
     private final boolean force;
     private final boolean quiet;
+    private final float outsideMask;
 
-    FitVolumeRun(FitSettings settings, FitModel model, boolean compareMono, String noiseSigma, Path outDir,
-            boolean force, boolean quiet) {
-        this.settings = settings;
-        this.model = model;
-        this.compareMono = compareMono;
-        this.noiseSigma = noiseSigma;
+    FitVolumeRun(VolumeAnalysis analysis, Path outDir, boolean force, boolean quiet, float outsideMask) {
+        this.analysis = analysis;
         this.outDir = outDir;
         this.force = force;
         this.quiet = quiet;
+        this.outsideMask = outsideMask;
     }
 
     /** Map names that get a PNG and SVG preview, with their titles and colour-bar labels. */
@@ -53,29 +45,25 @@ final class FitVolumeRun {
     /** Figure formats of every preview. */
     private static final String[] FORMATS = {".png", ".svg"};
 
-    VolumeResult run(Path data, Path maskFile, Path b1File, int threads, Map<String, Object> info, boolean json,
-            PrintWriter o, PrintWriter err) {
+    VolumeMaps run(Path data, Path maskFile, Path b1File, FitCommand.B1Units b1Units, int threads,
+            Map<String, Object> info, boolean json, PrintWriter o, PrintWriter err) {
         Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
-        Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read);
+        Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read)
+                .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);
         try (NiftiInput in = Nifti.open(data)) {
             NiftiHeader h = in.header();
             int echoes = h.volumes();
-            if (echoes != settings.train().echoes()) {
-                throw new InputException(data + ": " + echoes + " echoes (dim 4), but the protocol has " + settings.train().echoes());
+            if (echoes != analysis.train().echoes()) {
+                throw new InputException(data + ": " + echoes + " echoes (dim 4), but the protocol has " + analysis.train().echoes());
             }
-            VolumeJob job = new VolumeJob(in, mask, b1, threads, VolumeJob.DEFAULT_SLAB_VALUES);
-            double sigma = Double.NaN;
-            if (noiseSigma != null) {
-                sigma = noiseSigma.equals("auto") ? BackgroundNoise.sigma(job) : FitCommand.parseSigma(noiseSigma);
-            }
-            info.put("noise_sigma", Double.isNaN(sigma) ? null : sigma);
-            T2Fit.Factory factory = new T2Fit.Factory(settings.withNoiseSigma(sigma), model, compareMono);
-            List<Path> files = plannedFiles(factory.outputs());
-            for (Path f : files) {
+            VolumeJob job = CliChecks.volumeJob(in, mask, b1, threads);
+            for (Path f : plannedFiles(analysis.mapNames())) {
                 AtomicFiles.checkWritable(f, force);
             }
-            VolumeResult res = VolumePipeline.run(job, factory, StderrProgressBar.onTerminal(err, quiet));
-            res.writeMaps(outDir, force);
+            VolumeMaps maps = analysis.run(job, StderrProgressBar.onTerminal(err, quiet));
+            info.put("noise_sigma", Double.isNaN(maps.noiseSigma()) ? null : maps.noiseSigma());
+            VolumeResult res = maps.result();
+            maps.write(outDir, outsideMask, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
             double[] t2 = res.fittedValues("t2_ms");
@@ -86,7 +74,7 @@ final class FitVolumeRun {
                         res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
             }
             o.flush();
-            return res;
+            return maps;
         }
     }
 

@@ -16,6 +16,7 @@ import org.echotrellis.fit.spectrum.RefocusSearch;
 import org.echotrellis.fit.spectrum.Regularisation;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
 import org.echotrellis.fit.spectrum.T2Grid;
+import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
 import picocli.CommandLine.Command;
@@ -108,6 +109,10 @@ public final class SpectrumCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar.")
     boolean quiet;
 
+    @Option(names = "--outside-mask-value", paramLabel = "V", defaultValue = "nan",
+            description = "Value of image maps outside the mask: nan or a number such as 0 (default: ${DEFAULT-VALUE}).")
+    String outsideMask;
+
     @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
             description = "Table-input output on stdout: table, csv or json (default: ${DEFAULT-VALUE}).")
     Format format;
@@ -126,13 +131,14 @@ public final class SpectrumCommand implements Callable<Integer> {
         boolean image = name.endsWith(".nii") || name.endsWith(".nii.gz");
         Checks.require(image || name.endsWith(".csv"),
                 "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
-        BasisCache cache = BasisCache.build(train, options.t1Ms(), options.grid(), options.search());
-        Map<String, Object> settings = settings(p, train, options);
+        VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
+        BasisCache cache = analysis.basisCache().orElseThrow();
+        Map<String, Object> settings = settings(p, analysis);
         if (image) {
             Checks.require(out != null, "--out DIR is required for image input");
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
-            SpectrumVolumes.run(data, mask, cache, options, n, out, force, settings,
+            SpectrumVolumes.run(data, mask, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
                     StderrProgressBar.onTerminal(spec.commandLine().getErr(), quiet), format == Format.json,
                     spec.commandLine().getOut());
         } else {
@@ -159,30 +165,13 @@ public final class SpectrumCommand implements Callable<Integer> {
                 misfitIncrease, search, ws);
     }
 
-    private Map<String, Object> settings(Protocol p, CpmgTrain train, SpectrumOptions o) {
+    private Map<String, Object> settings(Protocol p, VolumeAnalysis analysis) {
         Map<String, Object> s = new LinkedHashMap<>();
         s.put("command", "spectrum");
         s.put("data", data.toString());
         s.put("protocol", protocol.toString());
-        s.put("protocol_name", p.name());
-        s.put("echoes", train.echoes());
-        s.put("echo_spacing_ms", train.echoSpacingMs());
         s.put("mask", mask == null ? null : mask.toString());
-        s.put("t2_min_ms", o.grid().minMs());
-        s.put("t2_max_ms", o.grid().maxMs());
-        s.put("t2_bins", o.grid().bins());
-        s.put("t2_ms", o.grid().t2Ms());
-        s.put("t1_ms", o.t1Ms());
-        s.put("regularisation", o.regularisation().label());
-        s.put("misfit_increase", o.misfitIncrease());
-        RefocusSearch r = o.search();
-        s.put("refocus", r.isFixed() ? Map.of("fixed_deg", r.loDeg())
-                : Map.of("lo_deg", r.loDeg(), "hi_deg", r.hiDeg(), "count", r.count()));
-        List<Map<String, Double>> ws = new ArrayList<>();
-        for (FractionWindow w : o.windows()) {
-            ws.add(Map.of("lo_ms", w.loMs(), "hi_ms", w.hiMs()));
-        }
-        s.put("fraction_windows", ws);
+        s.putAll(analysis.describe());
         return s;
     }
 }

@@ -15,6 +15,7 @@ import org.echotrellis.fit.spectrum.FractionWindow;
 import org.echotrellis.fit.spectrum.SpectrumFit;
 import org.echotrellis.fit.spectrum.SpectrumFitter;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.volume.SpectrumNames;
 import org.echotrellis.fit.spectrum.SpectrumStatus;
 import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.DecayTable;
@@ -206,7 +207,7 @@ final class SpectrumTables {
     }
 
     private static String quote(String s) {
-        return s.contains(",") || s.contains("\"") ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
+        return org.echotrellis.io.Csv.field(s);
     }
 
     private static String g(double v) {

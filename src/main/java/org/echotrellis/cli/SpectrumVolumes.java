@@ -10,8 +10,10 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import org.echotrellis.InputException;
-import org.echotrellis.fit.spectrum.BasisCache;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.volume.SpectrumNames;
+import org.echotrellis.fit.volume.VolumeAnalysis;
+import org.echotrellis.fit.volume.VolumeMaps;
 import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
@@ -19,7 +21,6 @@ import org.echotrellis.io.NiftiInput;
 import org.echotrellis.io.ProgressReporter;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
-import org.echotrellis.io.VolumePipeline;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.MapPreview;
 import org.echotrellis.plot.PlotSettings;
@@ -36,61 +37,47 @@ final class SpectrumVolumes {
 
     private SpectrumVolumes() { }
 
-    static VolumeResult run(Path data, Path mask, BasisCache cache, SpectrumOptions o, int threads, Path out,
-                            boolean force, Map<String, Object> settings, ProgressReporter progress,
-                            boolean json, PrintWriter stdout) throws Exception {
+    static VolumeMaps run(Path data, Path mask, VolumeAnalysis analysis, int threads, Path out, boolean force,
+                          float outsideMask, Map<String, Object> settings, ProgressReporter progress,
+                          boolean json, PrintWriter stdout) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
+        SpectrumOptions o = analysis.spectrumOptions().orElseThrow();
         try (NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
-            VolumeJob job = new VolumeJob(in, m, Optional.empty(), threads, VolumeJob.DEFAULT_SLAB_VALUES);
-            if (job.echoes() != cache.echoes()) {
+            VolumeJob job = CliChecks.volumeJob(in, m, Optional.empty(), threads);
+            if (job.echoes() != analysis.train().echoes()) {
                 throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
-                        + cache.echoes());
+                        + analysis.train().echoes());
             }
             refuseExisting(out, o, force);
             Files.createDirectories(out);
-            VolumeResult r = VolumePipeline.run(job, new SpectrumKernel.Factory(cache, o), progress);
-            Map<String, Object> s = write(r, o, out, force, settings);
+            VolumeMaps r = analysis.run(job, progress);
+            Map<String, Object> s = write(r, o, out, force, outsideMask, settings);
+            VolumeResult res = r.result();
             if (json) {
-                stdout.println(org.echotrellis.io.Json.write(RunSummary.build(r, s)).strip());
+                stdout.println(org.echotrellis.io.Json.write(RunSummary.build(res, s)).strip());
             } else {
                 stdout.printf(Locale.ROOT, "spectrum: %d voxels fitted in %.1f s (%.0f voxels/s); outputs in %s%n",
-                        r.processed(), r.seconds(), r.voxelsPerSecond(), out);
+                        res.processed(), res.seconds(), res.voxelsPerSecond(), out);
             }
             stdout.flush();
             return r;
         }
     }
 
-    private static Map<String, Object> write(VolumeResult r, SpectrumOptions o, Path out, boolean force,
-            Map<String, Object> settings) {
+    private static Map<String, Object> write(VolumeMaps r, SpectrumOptions o, Path out, boolean force,
+                                             float outsideMask, Map<String, Object> settings) {
         NiftiHeader h = r.mapHeader();
         int nx = h.size(1);
         int ny = h.size(2);
         int nz = h.size(3);
-        int nvox = nx * ny * nz;
-        int bins = o.grid().bins();
-        float[] spectrum = new float[nvox * bins];
-        double[] t2 = o.grid().t2Ms();
-        for (int j = 0; j < bins; j++) {
-            System.arraycopy(r.map(SpectrumNames.binOutput(j, t2[j])), 0, spectrum, j * nvox, nvox);
-        }
-        Nifti.write(out.resolve("spectrum.nii.gz"), h.withVolumes(bins), spectrum, force);
-        List<String> scalars = SpectrumNames.scalars(o);
-        for (String name : scalars) {
-            Nifti.write(out.resolve(name + ".nii.gz"), h, r.map(name), force);
-        }
-        double[] codes = new double[nvox];
-        byte[] status = r.status();
-        for (int i = 0; i < nvox; i++) {
-            codes[i] = status[i];
-        }
-        Nifti.write(out.resolve("status.nii.gz"), h.withDatatype(org.echotrellis.io.NiftiDatatype.UINT8), codes, force);
-        double fractionHi = sharedEnd(r, scalars, "fraction_", 98);
-        double gmLo = sharedEnd(r, scalars, "gm_t2_", 2);
-        double gmHi = sharedEnd(r, scalars, "gm_t2_", 98);
+        r.write(out, outsideMask, force);
+        List<String> scalars = r.mapNames();
+        double fractionHi = sharedEnd(r.result(), scalars, "fraction_", 98);
+        double gmLo = sharedEnd(r.result(), scalars, "gm_t2_", 2);
+        double gmHi = sharedEnd(r.result(), scalars, "gm_t2_", 98);
         PlotSettings ps = PlotSettings.current();
         for (String name : scalars) {
             if (name.equals("chi2_unregularised")) {
@@ -113,7 +100,7 @@ final class SpectrumVolumes {
         }
         Map<String, Object> s = new LinkedHashMap<>(settings);
         s.put("outputs", outputs(scalars));
-        RunSummary.write(out.resolve("summary.json"), r, s, force);
+        RunSummary.write(out.resolve("summary.json"), r.result(), s, force);
         return s;
     }
 

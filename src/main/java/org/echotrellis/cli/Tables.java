@@ -73,7 +73,6 @@ final class Tables {
     }
 
     private static String csv(String s) {
-        boolean quote = s.contains(",") || s.contains("\"") || s.contains("\n") || s.contains("\r");
-        return quote ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
+        return org.echotrellis.io.Csv.field(s);
     }
 }

@@ -7,6 +7,7 @@ import java.io.InputStream;
 import java.io.OutputStream;
 import java.nio.ByteBuffer;
 import java.nio.channels.FileChannel;
+import java.nio.channels.SeekableByteChannel;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
@@ -40,45 +41,224 @@ public final class Nifti {
     public static NiftiInput open(Path file) {
         String where = file.toString();
         try {
-            byte[] head = new byte[2];
-            try (InputStream in = Files.newInputStream(file)) {
-                if (in.readNBytes(head, 0, 2) < 2) {
-                    throw new InputException(where + ": not a NIfTI-1 file (fewer than 2 bytes)");
+            Path headerFile = pairHeader(file);
+            NiftiHeader h = NiftiHeader.decode(readHead(headerFile, where), where);
+            if (h.format().paired()) {
+                return openPair(headerFile, file, h, where);
+            }
+            if (gzipped(file)) {
+                try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(file)), CHUNK)) {
+                    return spool(in, where);
+                } catch (ZipException | java.io.EOFException e) {
+                    throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
                 }
             }
-            if ((head[0] & 0xff) == 0x1f && (head[1] & 0xff) == 0x8b) {
-                return openCompressed(file, where);
-            }
-            FileChannel ch = FileChannel.open(file, StandardOpenOption.READ);
-            try {
-                ByteBuffer hb = ByteBuffer.allocate(NiftiHeader.HEADER_SIZE);
-                while (hb.hasRemaining() && ch.read(hb) >= 0) {
-                    // read the header
-                }
-                NiftiHeader h = NiftiHeader.decode(java.util.Arrays.copyOf(hb.array(), hb.position()), where);
-                long need = h.voxOffset() + h.dataBytes();
-                if (ch.size() < need) {
-                    throw new InputException(where + ": file is truncated: " + ch.size() + " bytes, header declares " + need);
-                }
-                return new NiftiInput(h, ch, null, where);
-            } catch (RuntimeException e) {
-                ch.close();
-                throw e;
-            }
+            return inPlace(FileChannel.open(file, StandardOpenOption.READ), where);
         } catch (NoSuchFileException e) {
             throw new InputException(where + ": file not found");
+        } catch (ZipException | java.io.EOFException e) {
+            throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
         } catch (IOException e) {
             throw new InputException(where + ": cannot read (" + e.getMessage() + ")", e);
         }
     }
 
-    private static NiftiInput openCompressed(Path file, String where) throws IOException {
+    private static boolean gzipped(Path file) throws IOException {
+        try (InputStream in = Files.newInputStream(file)) {
+            byte[] head = in.readNBytes(2);
+            return head.length == 2 && (head[0] & 0xff) == 0x1f && (head[1] & 0xff) == 0x8b;
+        }
+    }
+
+    /** The header bytes of a file (inflated if gzip): 348 or 540 of them. */
+    private static byte[] readHead(Path file, String where) throws IOException {
+        boolean gz = gzipped(file);
+        try (InputStream raw = Files.newInputStream(file);
+                InputStream in = gz ? new GZIPInputStream(new BufferedInputStream(raw), CHUNK) : raw) {
+            byte[] first = in.readNBytes(4);
+            int size = NiftiHeader.headerSize(first, where);
+            byte[] all = java.util.Arrays.copyOf(first, size);
+            int n = in.readNBytes(all, 4, size - 4);
+            return java.util.Arrays.copyOf(all, 4 + n);
+        }
+    }
+
+    /**
+     * The header file of a path: an image file named {@code X.img[.gz]} whose sibling
+     * {@code X.hdr[.gz]} exists has its header there; any other path holds its own header.
+     */
+    private static Path pairHeader(Path file) {
+        String name = file.getFileName().toString();
+        String lower = name.toLowerCase(java.util.Locale.ROOT);
+        int cut = lower.endsWith(".img") ? 4 : lower.endsWith(".img.gz") ? 7 : -1;
+        if (cut < 0) {
+            return file;
+        }
+        String stem = name.substring(0, name.length() - cut);
+        for (String ext : new String[] {".hdr", ".hdr.gz", ".HDR"}) {
+            Path h = file.resolveSibling(stem + ext);
+            if (Files.isRegularFile(h)) {
+                return h;
+            }
+        }
+        return file;
+    }
+
+    /** The image file of a pair header: the given path if it is not the header, else X.img[.gz]. */
+    private static Path pairImage(Path headerFile, Path given, String where) {
+        if (!given.equals(headerFile)) {
+            return given;
+        }
+        String name = headerFile.getFileName().toString();
+        String lower = name.toLowerCase(java.util.Locale.ROOT);
+        int cut = lower.endsWith(".hdr.gz") ? 7 : lower.lastIndexOf('.') >= 0 ? name.length() - lower.lastIndexOf('.') : 0;
+        String stem = name.substring(0, name.length() - cut);
+        for (String ext : new String[] {".img", ".img.gz", ".IMG"}) {
+            Path i = headerFile.resolveSibling(stem + ext);
+            if (Files.isRegularFile(i)) {
+                return i;
+            }
+        }
+        throw new InputException(where + ": a .hdr/.img pair header (no single-file NIfTI magic \"n+1\" at byte 344), "
+                + "but its image file " + stem + ".img is missing");
+    }
+
+    private static NiftiInput openPair(Path headerFile, Path given, NiftiHeader h, String where) throws IOException {
+        Path image = pairImage(headerFile, given, where);
+        String what = where + " (image " + image.getFileName() + ")";
+        long need = h.voxOffset() + h.dataBytes();
+        if (!gzipped(image)) {
+            FileChannel ch = FileChannel.open(image, StandardOpenOption.READ);
+            if (ch.size() < need) {
+                ch.close();
+                throw new InputException(what + ": file is truncated: " + ch.size() + " bytes, header declares " + need);
+            }
+            return new NiftiInput(h, ch, null, where);
+        }
+        Path tmp = Files.createTempFile("echotrellis-", ".img");
+        tmp.toFile().deleteOnExit();
+        try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(image)), CHUNK);
+                OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
+            copyBounded(in, out, 0, need, what);
+        } catch (RuntimeException | IOException e) {
+            Files.deleteIfExists(tmp);
+            throw e;
+        }
+        return new NiftiInput(h, FileChannel.open(tmp, StandardOpenOption.READ), tmp, where);
+    }
+
+    /** Copies until {@code need} bytes are written in all; refuses a stream that ends early or (gzip) runs on. */
+    private static void copyBounded(InputStream in, OutputStream out, long have, long need, String where) throws IOException {
+        long done = have;
+        byte[] buf = new byte[CHUNK];
+        while (done < need) {
+            int n = in.read(buf, 0, (int) Math.min(buf.length, need - done));
+            if (n < 0) {
+                throw new InputException(where + ": file is truncated: inflates to " + done + " bytes, header declares " + need);
+            }
+            out.write(buf, 0, n);
+            done += n;
+        }
+        if (in instanceof GZIPInputStream && in.read() >= 0) {
+            throw new InputException(where + ": gzip stream inflates beyond the " + need
+                    + " bytes declared by its header; refused");
+        }
+    }
+
+    /**
+     * Opens a series from a stream (for example a file of a distributed file system). The stream is
+     * copied (inflated if it starts with the gzip bytes 0x1f 0x8b) into a temporary file, bounded by
+     * the size its header declares; {@link NiftiInput#close()} deletes the copy. The stream is read
+     * to its end but not closed.
+     *
+     * @param in the file's bytes from the start
+     * @param name the file name used in messages
+     * @return the open input (close it)
+     * @throws InputException for a truncated, oversized or non-NIfTI stream
+     */
+    public static NiftiInput open(InputStream in, String name) {
+        try {
+            BufferedInputStream b = new BufferedInputStream(in, CHUNK);
+            b.mark(2);
+            int b0 = b.read();
+            int b1 = b.read();
+            b.reset();
+            InputStream src = b0 == 0x1f && b1 == 0x8b ? new GZIPInputStream(b, CHUNK) : b;
+            return spool(src, name);
+        } catch (ZipException | java.io.EOFException e) {
+            throw new InputException(name + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
+        } catch (IOException e) {
+            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
+        }
+    }
+
+    /**
+     * Opens a series from a seekable channel positioned anywhere (the file starts at position 0).
+     * An uncompressed file is read in place (the channel is closed with the input); a gzip file is
+     * inflated into a temporary file as for {@link #open(InputStream, String)} and the channel closed.
+     *
+     * @param channel the file's bytes
+     * @param name the file name used in messages
+     * @return the open input (close it)
+     * @throws InputException for a truncated, oversized or non-NIfTI file
+     */
+    public static NiftiInput open(SeekableByteChannel channel, String name) {
+        try {
+            ByteBuffer head = ByteBuffer.allocate(2);
+            channel.position(0);
+            while (head.hasRemaining() && channel.read(head) >= 0) {
+                // first two bytes
+            }
+            if (head.position() < 2) {
+                channel.close();
+                throw new InputException(name + ": not a NIfTI file (fewer than 2 bytes)");
+            }
+            channel.position(0);
+            if ((head.get(0) & 0xff) == 0x1f && (head.get(1) & 0xff) == 0x8b) {
+                try (SeekableByteChannel c = channel) {
+                    return open(java.nio.channels.Channels.newInputStream(c), name);
+                }
+            }
+            return inPlace(channel, name);
+        } catch (IOException e) {
+            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
+        }
+    }
+
+    private static NiftiInput inPlace(SeekableByteChannel ch, String where) throws IOException {
+        try {
+            ByteBuffer hb = ByteBuffer.allocate(NiftiHeader.NIFTI2_HEADER_SIZE);
+            ch.position(0);
+            while (hb.hasRemaining() && ch.read(hb) >= 0) {
+                // read the header
+            }
+            NiftiHeader h = NiftiHeader.decode(java.util.Arrays.copyOf(hb.array(), hb.position()), where);
+            if (h.format().paired()) {
+                throw new InputException(where + ": a .hdr/.img pair header; open the pair by its file path");
+            }
+            long need = h.voxOffset() + h.dataBytes();
+            if (ch.size() < need) {
+                throw new InputException(where + ": file is truncated: " + ch.size() + " bytes, header declares " + need);
+            }
+            return new NiftiInput(h, ch, null, where);
+        } catch (RuntimeException | IOException e) {
+            ch.close();
+            throw e;
+        }
+    }
+
+    /** Copies a decompressed stream into a temporary file, bounded by its header's declared size. */
+    private static NiftiInput spool(InputStream in, String where) throws IOException {
         Path tmp = Files.createTempFile("echotrellis-", ".nii");
         tmp.toFile().deleteOnExit();
-        try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(file)), CHUNK);
-                OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
-            byte[] hb = in.readNBytes(NiftiHeader.HEADER_SIZE);
-            NiftiHeader h = NiftiHeader.decode(hb, where);
+        try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
+            byte[] first = in.readNBytes(4);
+            byte[] hb = java.util.Arrays.copyOf(first, NiftiHeader.headerSize(first, where));
+            int got = in.readNBytes(hb, 4, hb.length - 4);
+            NiftiHeader h = NiftiHeader.decode(java.util.Arrays.copyOf(hb, 4 + got), where);
+            if (h.format().paired()) {
+                throw new InputException(where + ": a .hdr/.img pair header; open the pair by its file path");
+            }
             long need = h.voxOffset() + h.dataBytes();
             long free = Files.getFileStore(tmp).getUsableSpace();
             if (need > free) {
@@ -86,20 +266,7 @@ public final class Nifti {
                         + " bytes free for its inflated temporary copy; refused");
             }
             out.write(hb);
-            long have = hb.length;
-            byte[] buf = new byte[CHUNK];
-            while (have < need) {
-                int n = in.read(buf, 0, (int) Math.min(buf.length, need - have));
-                if (n < 0) {
-                    throw new InputException(where + ": file is truncated: inflates to " + have + " bytes, header declares " + need);
-                }
-                out.write(buf, 0, n);
-                have += n;
-            }
-            if (in.read() >= 0) {
-                throw new InputException(where + ": gzip stream inflates beyond the " + need
-                        + " bytes declared by its header; refused");
-            }
+            copyBounded(in, out, hb.length, need, where);
         } catch (ZipException | java.io.EOFException e) {
             Files.deleteIfExists(tmp);
             throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
@@ -108,9 +275,9 @@ public final class Nifti {
             throw e;
         }
         FileChannel ch = FileChannel.open(tmp, StandardOpenOption.READ);
-        byte[] hb = new byte[NiftiHeader.HEADER_SIZE];
-        ch.read(ByteBuffer.wrap(hb), 0);
-        return new NiftiInput(NiftiHeader.decode(hb, where), ch, tmp, where);
+        byte[] hb = new byte[NiftiHeader.NIFTI2_HEADER_SIZE];
+        int n = ch.read(ByteBuffer.wrap(hb), 0);
+        return new NiftiInput(NiftiHeader.decode(java.util.Arrays.copyOf(hb, Math.max(0, n)), where), ch, tmp, where);
     }
 
     /**
@@ -160,27 +327,44 @@ public final class Nifti {
             throw new IllegalArgumentException("header needs " + header.totalVoxels() + " values, got " + count);
         }
         boolean gz = file.getFileName().toString().endsWith(".gz");
-        NiftiHeader h = header;
+        AtomicFiles.write(file, force, raw -> encode(raw, header, count, values, gz));
+    }
+
+    /**
+     * Writes an image to a stream (for example a file of a distributed file system) in the same
+     * form as {@link #write(Path, NiftiHeader, float[], boolean)}; the stream is flushed, not closed.
+     *
+     * @param out the target stream
+     * @param header shape, datatype and geometry
+     * @param values values in file order (not modified), length = header.totalVoxels()
+     * @param gzip compress (for a {@code .nii.gz} name)
+     * @throws IOException if the stream fails
+     */
+    public static void write(OutputStream out, NiftiHeader header, float[] values, boolean gzip) throws IOException {
+        if (values.length != header.totalVoxels()) {
+            throw new IllegalArgumentException("header needs " + header.totalVoxels() + " values, got " + values.length);
+        }
+        encode(out, header, values.length, i -> values[i], gzip);
+    }
+
+    private static void encode(OutputStream raw, NiftiHeader h, int count, Values values, boolean gz) throws IOException {
         double slope = h.isScaled() ? h.sclSlope() : 1.0;
         double inter = h.isScaled() ? h.sclInter() : 0.0;
         NiftiDatatype type = h.datatype();
-        AtomicFiles.write(file, force, raw -> {
-            OutputStream out = gz ? new GZIPOutputStream(raw, CHUNK) : raw;
-            out.write(h.encode());
-            ByteBuffer buf = ByteBuffer.allocate(CHUNK).order(h.order());
-            for (int i = 0; i < count; i++) {
-                if (buf.remaining() < type.bytes()) {
-                    out.write(buf.array(), 0, buf.position());
-                    buf.clear();
-                }
-                type.put(buf, (values.at(i) - inter) / slope);
+        OutputStream out = gz ? new GZIPOutputStream(raw, CHUNK) : raw;
+        out.write(h.encode());
+        ByteBuffer buf = ByteBuffer.allocate(CHUNK).order(h.order());
+        for (int i = 0; i < count; i++) {
+            if (buf.remaining() < type.bytes()) {
+                out.write(buf.array(), 0, buf.position());
+                buf.clear();
             }
-            out.write(buf.array(), 0, buf.position());
-            if (out instanceof GZIPOutputStream) {
-                ((GZIPOutputStream) out).finish();
-            }
-            out.flush();
-        });
+            type.put(buf, (values.at(i) - inter) / slope);
+        }
+        out.write(buf.array(), 0, buf.position());
+        if (out instanceof GZIPOutputStream) {
+            ((GZIPOutputStream) out).finish();
+        }
+        out.flush();
     }
-
 }

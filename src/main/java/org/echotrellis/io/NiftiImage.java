@@ -56,4 +56,19 @@ public final class NiftiImage {
     public double[] values() {
         return values.clone();
     }
+
+    /**
+     * A copy with every value multiplied by a factor, for example 0.01 to turn a B1 map in percent
+     * (100 = nominal, as BIDS recommends for TB1map) into a flip-angle scale.
+     *
+     * @param factor the factor
+     * @return the scaled image
+     */
+    public NiftiImage times(double factor) {
+        double[] v = values.clone();
+        for (int i = 0; i < v.length; i++) {
+            v[i] *= factor;
+        }
+        return new NiftiImage(header, v, source, false);
+    }
 }

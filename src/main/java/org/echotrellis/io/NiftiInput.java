@@ -3,26 +3,26 @@ package org.echotrellis.io;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.ByteBuffer;
-import java.nio.channels.FileChannel;
+import java.nio.channels.SeekableByteChannel;
 import java.nio.file.Files;
 import java.nio.file.Path;
 
 import org.echotrellis.InputException;
 
 /**
- * An open NIfTI-1 file read slab by slab (a range of z slices across all volumes), so a large
+ * An open NIfTI file read slab by slab (a range of z slices across all volumes), so a large
  * 4-D series never has to sit in memory whole. A {@code .nii.gz} input is inflated once, bounded
  * by the header's declared size, into a temporary file that {@link #close()} deletes. Not
  * thread-safe; the buffer grows to the largest slab requested and is then reused.
  */
 public final class NiftiInput implements AutoCloseable {
     private final NiftiHeader header;
-    private final FileChannel channel;
+    private final SeekableByteChannel channel;
     private final Path temporary;
     private final String source;
     private ByteBuffer buffer = ByteBuffer.allocate(0);
 
-    NiftiInput(NiftiHeader header, FileChannel channel, Path temporary, String source) {
+    NiftiInput(NiftiHeader header, SeekableByteChannel channel, Path temporary, String source) {
         this.header = header;
         this.channel = channel;
         this.temporary = temporary;
@@ -108,7 +108,8 @@ public final class NiftiInput implements AutoCloseable {
         try {
             long p = pos;
             while (buffer.hasRemaining()) {
-                int n = channel.read(buffer, p);
+                channel.position(p);
+                int n = channel.read(buffer);
                 if (n < 0) {
                     throw new InputException(source + ": file is truncated (voxel data end before byte " + (pos + buffer.limit()) + ")");
                 }

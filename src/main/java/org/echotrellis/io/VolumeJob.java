@@ -7,8 +7,8 @@ import org.echotrellis.InputException;
 
 /**
  * What a volume job reads: the 4-D echo series (x, y, z, echo), an optional 3-D mask (voxels with
- * value 0 or NaN are skipped) and an optional 3-D B1 map (flip-angle scale per voxel). Shapes are
- * checked on construction.
+ * value 0 or NaN are skipped) and an optional 3-D B1 map (flip-angle scale per voxel). Shapes and
+ * voxel-to-world affines are checked on construction (within a thousandth of a voxel).
  *
  * @param data the open echo series
  * @param mask optional mask on the same grid
@@ -25,16 +25,18 @@ public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<Nif
 
     /** Validates shapes. */
     public VolumeJob {
-        Checks.inRange("--threads", threads, 1, 1024, null);
+        Checks.inRange("threads", threads, 1, 1024, null);
         if (slabValues < 1) {
             throw new IllegalArgumentException("slabValues must be >= 1");
         }
         NiftiHeader h = data.header();
-        if (h.rank() > 4) {
-            throw new InputException(data.source() + ": expected a 4-D series (x, y, z, echo), got " + h.rank() + " dimensions");
+        boolean fiveD = h.rank() == 5 && h.size(4) == 1;  // (x, y, z, 1, echo): echoes along dim 5
+        if (h.rank() > 4 && !fiveD) {
+            throw new InputException(data.source() + ": expected a 4-D series (x, y, z, echo) or a 5-D one (x, y, z, 1, echo), got "
+                    + h.rank() + " dimensions with dim[4] = " + h.size(4));
         }
-        mask.ifPresent(m -> sameGrid(h, m, "--mask"));
-        b1Map.ifPresent(b -> sameGrid(h, b, "--b1-map"));
+        mask.ifPresent(m -> sameGrid(h, m, "mask"));
+        b1Map.ifPresent(b -> sameGrid(h, b, "B1 map"));
     }
 
     /**
@@ -71,12 +73,17 @@ public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<Nif
         return m != 0 && !Double.isNaN(m);
     }
 
-    private static void sameGrid(NiftiHeader h, NiftiImage img, String option) {
+    private static void sameGrid(NiftiHeader h, NiftiImage img, String role) {
         NiftiHeader m = img.header();
         boolean ok = m.volumes() == 1 && m.size(1) == h.size(1) && m.size(2) == h.size(2) && m.size(3) == h.size(3);
         if (!ok) {
-            throw new InputException(option + " " + img.source() + ": shape " + shape(m) + " does not match the data grid "
+            throw new InputException(role + " " + img.source() + ": shape " + shape(m) + " does not match the data grid "
                     + h.size(1) + "x" + h.size(2) + "x" + h.size(3) + " (a 3-D image on the same grid is required)");
+        }
+        String diff = NiftiAffine.difference(h, m);
+        if (diff != null) {
+            throw new InputException(role + " " + img.source() + ": same shape as the data, but another geometry: " + diff
+                    + " (a 3-D image on the same grid is required)");
         }
     }
 

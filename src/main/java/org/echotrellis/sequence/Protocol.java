@@ -18,9 +18,11 @@ import org.echotrellis.epg.EpgProgram;
  * @param events the event list
  * @param train the shorthand echo train, when the protocol was written in that form
  * @param source where the protocol came from (file path or "built-in")
+ * @param acquisition pulse shapes, slice selection, repetition time and crushers of the shorthand train
+ *     ({@link Acquisition#none()} for event lists and for trains without those keys)
  */
 public record Protocol(String name, String description, Tissue tissue, double b1Scale, List<Event> events,
-                       Optional<CpmgTrain> train, String source) {
+                       Optional<CpmgTrain> train, String source, Acquisition acquisition) {
 
     /** Largest number of events in a protocol. */
     public static final int MAX_EVENTS = 100_000;
@@ -34,6 +36,29 @@ public record Protocol(String name, String description, Tissue tissue, double b1
         Checks.require(b1Scale > 0, "b1_scale must be > 0, got " + b1Scale + " (" + source + ")");
         events = List.copyOf(events);
         train = train == null ? Optional.empty() : train;
+        acquisition = acquisition == null ? Acquisition.none() : acquisition;
+        if (acquisition != Acquisition.none()) {
+            Checks.require(train.isPresent(), "pulse shapes, slice, repetition_ms and crusher need the shorthand train form ("
+                    + source + ")");
+            Optional<String> problem = acquisition.timingProblem(train.get());
+            Checks.require(problem.isEmpty(), problem.orElse("") + " (" + source + ")");
+        }
+    }
+
+    /**
+     * A protocol with the ideal acquisition ({@link Acquisition#none()}).
+     *
+     * @param name protocol name
+     * @param description free text
+     * @param tissue default tissue
+     * @param b1Scale default flip scale
+     * @param events the event list
+     * @param train the shorthand train, if any
+     * @param source origin
+     */
+    public Protocol(String name, String description, Tissue tissue, double b1Scale, List<Event> events,
+                    Optional<CpmgTrain> train, String source) {
+        this(name, description, tissue, b1Scale, events, train, source, Acquisition.none());
     }
 
     /**
@@ -50,16 +75,35 @@ public record Protocol(String name, String description, Tissue tissue, double b1
      */
     public static Protocol ofTrain(String name, String description, Tissue tissue, double b1Scale, CpmgTrain train,
                                    String source) {
+        return ofTrain(name, description, tissue, b1Scale, train, source, Acquisition.none());
+    }
+
+    /**
+     * Builds the protocol of a shorthand echo train acquired as described by {@code acquisition}.
+     *
+     * @param name protocol name
+     * @param description free text
+     * @param tissue tissue
+     * @param b1Scale flip scale
+     * @param train the echo train
+     * @param source origin
+     * @param acquisition pulses, slice, TR and crushers
+     * @return the protocol
+     */
+    public static Protocol ofTrain(String name, String description, Tissue tissue, double b1Scale, CpmgTrain train,
+                                   String source, Acquisition acquisition) {
+        Optional<RfPulse> exc = acquisition.excitationPulse();
+        Optional<RfPulse> ref = acquisition.refocusingPulse();
         List<Event> ev = new ArrayList<>(1 + 4 * train.echoes());
-        ev.add(new Event.Rf(train.excitationFlipDeg(), train.excitationPhaseDeg()));
+        ev.add(new Event.Rf(train.excitationFlipDeg(), train.excitationPhaseDeg(), exc));
         double half = 0.5 * train.echoSpacingMs();
         for (int n = 0; n < train.echoes(); n++) {
             ev.add(new Event.Interval(half, 1));
-            ev.add(new Event.Rf(train.refocusFlipDeg(n), train.refocusPhaseDeg(n)));
+            ev.add(new Event.Rf(train.refocusFlipDeg(n), train.refocusPhaseDeg(n), ref));
             ev.add(new Event.Interval(half, 1));
             ev.add(new Event.Echo("echo " + (n + 1)));
         }
-        return new Protocol(name, description, tissue, b1Scale, ev, Optional.of(train), source);
+        return new Protocol(name, description, tissue, b1Scale, ev, Optional.of(train), source, acquisition);
     }
 
     /** @return number of echo read-outs */
@@ -161,12 +205,25 @@ public record Protocol(String name, String description, Tissue tissue, double b1
 
     /** @return a copy simulating another tissue */
     public Protocol withTissue(Tissue t) {
-        return new Protocol(name, description, t, b1Scale, events, train, source);
+        return new Protocol(name, description, t, b1Scale, events, train, source, acquisition);
+    }
+
+    /** @return a copy acquired another way (shorthand trains only, unless {@code a} is {@link Acquisition#none()}) */
+    public Protocol withAcquisition(Acquisition a) {
+        return new Protocol(name, description, tissue, b1Scale, events, train, source, a);
+    }
+
+    /**
+     * @return true if the ideal-pulse EPG of the events gives this protocol's echoes for its tissue
+     *     (see {@link Acquisition#isIdealFor})
+     */
+    public boolean isIdealAcquisition() {
+        return acquisition.isIdealFor(tissue);
     }
 
     /** @return a copy with another B1 scale */
     public Protocol withB1Scale(double b1) {
-        return new Protocol(name, description, tissue, b1, events, train, source);
+        return new Protocol(name, description, tissue, b1, events, train, source, acquisition);
     }
 
     /**

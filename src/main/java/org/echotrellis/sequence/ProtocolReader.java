@@ -7,7 +7,6 @@ import com.fasterxml.jackson.core.StreamReadConstraints;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashSet;
@@ -36,12 +35,13 @@ public final class ProtocolReader {
     public static final int MAX_TOTAL_DEPHASING = 20_000;
 
     private static final Set<String> TOP = keys("name", "description", "tissue", "train", "events", "b1_scale");
-    private static final Set<String> TISSUE = keys("preset", "name", "t1_ms", "t2_ms");
-    private static final Set<String> TRAIN = keys("echoes", "echo_spacing_ms", "excitation", "refocusing", "b1_scale");
-    private static final Set<String> EXCITATION = keys("flip_deg", "phase_deg");
-    private static final Set<String> REFOCUSING = keys("flip_deg", "flips_deg", "phase_deg", "phases_deg");
+    private static final Set<String> TISSUE = keys("preset", "name", "t1_ms", "t2_ms", "diffusivity_mm2_per_s");
+    private static final Set<String> TRAIN = keys("echoes", "echo_spacing_ms", "excitation", "refocusing", "b1_scale",
+            "repetition_ms", "slice", "crusher");
+    private static final Set<String> EXCITATION = keys("flip_deg", "phase_deg", "pulse");
+    private static final Set<String> REFOCUSING = keys("flip_deg", "flips_deg", "phase_deg", "phases_deg", "pulse");
     private static final Set<String> EVENT = keys("rf", "interval", "echo");
-    private static final Set<String> RF = keys("flip_deg", "phase_deg");
+    private static final Set<String> RF = keys("flip_deg", "phase_deg", "pulse");
     private static final Set<String> INTERVAL = keys("duration_ms", "dephasing");
     private static final Set<String> ECHO = keys("label");
 
@@ -59,28 +59,7 @@ public final class ProtocolReader {
      * @throws InputException for any problem, with file:line:column where known
      */
     public static Protocol read(Path file) {
-        String name = file.toString();
-        String lower = name.toLowerCase(Locale.ROOT);
-        boolean yaml = lower.endsWith(".yaml") || lower.endsWith(".yml");
-        if (!yaml && !lower.endsWith(".json")) {
-            throw new InputException(name + ": protocol files must end in .yaml, .yml or .json");
-        }
-        byte[] bytes;
-        try {
-            if (Files.isDirectory(file)) {
-                throw new InputException(name + ": is a directory, expected a protocol file");
-            }
-            if (!Files.isRegularFile(file)) {
-                throw new InputException(name + ": no such file");
-            }
-            if (Files.size(file) > MAX_FILE_BYTES) {
-                throw new InputException(name + ": file larger than " + MAX_FILE_BYTES + " bytes");
-            }
-            bytes = Files.readAllBytes(file);
-        } catch (IOException e) {
-            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
-        }
-        return parse(new String(bytes, StandardCharsets.UTF_8), name, yaml);
+        return ProtocolText.read(file).parse();
     }
 
     /**
@@ -169,9 +148,10 @@ public final class ProtocolReader {
             if (t.containsKey("b1_scale")) {
                 b1 = b1(t.get("b1_scale"));
             }
-            return Protocol.ofTrain(name, description, tissue, b1, train(tn), src);
+            CpmgTrain train = train(tn);
+            return Protocol.ofTrain(name, description, tissue, b1, train, src, AcquisitionReader.read(tn, train, src));
         }
-        return new Protocol(name, description, tissue, b1, events(top.get("events")), Optional.empty(), src);
+        return new Protocol(name, description, tissue, b1, events(top.get("events"), src), Optional.empty(), src);
     }
 
     private static String fileStem(String src) {
@@ -206,7 +186,8 @@ public final class ProtocolReader {
         String name = m.containsKey("name") ? m.get("name").text("name") : base != null ? base.name() : "";
         double t1 = m.containsKey("t1_ms") ? relaxation(m.get("t1_ms"), "t1_ms") : base.t1Ms();
         double t2 = m.containsKey("t2_ms") ? relaxation(m.get("t2_ms"), "t2_ms") : base.t2Ms();
-        return new Tissue(name, t1, t2);
+        double d = m.containsKey("diffusivity_mm2_per_s") ? AcquisitionReader.diffusivity(m.get("diffusivity_mm2_per_s")) : 0;
+        return new Tissue(name, t1, t2, d);
     }
 
     private static double relaxation(Node n, String key) {
@@ -233,7 +214,7 @@ public final class ProtocolReader {
         return v;
     }
 
-    private static double duration(Node n, String key) {
+    static double duration(Node n, String key) {
         double v = n.number(key);
         if (!(v > 0) || Double.isInfinite(v) || v > 1e7) {
             throw new InputException(n.where + ": " + key + " must be > 0 and at most 1e7 ms, got " + v);
@@ -299,7 +280,7 @@ public final class ProtocolReader {
         return out;
     }
 
-    private static Node require(Node owner, Map<String, Node> m, String key, String what) {
+    static Node require(Node owner, Map<String, Node> m, String key, String what) {
         Node n = m.get(key);
         if (n == null) {
             throw new InputException(owner.where + ": " + what + " needs '" + key + "'");
@@ -307,7 +288,7 @@ public final class ProtocolReader {
         return n;
     }
 
-    private static List<Event> events(Node ln) {
+    private static List<Event> events(Node ln, String src) {
         List<Node> list = ln.list("events");
         Checks.require(!list.isEmpty(), ln.where + ": events must not be empty");
         if (list.size() > Protocol.MAX_EVENTS) {
@@ -335,7 +316,9 @@ public final class ProtocolReader {
                     Map<String, Node> b = body.map("rf");
                     double f = flip(require(body, b, "flip_deg", "rf"), "rf.flip_deg");
                     double ph = b.containsKey("phase_deg") ? phase(b.get("phase_deg"), "rf.phase_deg") : 0;
-                    out.add(new Event.Rf(f, ph));
+                    Optional<RfPulse> pulse = b.containsKey("pulse")
+                            ? Optional.of(AcquisitionReader.pulse(b.get("pulse"), "rf.pulse", src)) : Optional.empty();
+                    out.add(new Event.Rf(f, ph, pulse));
                 }
                 case "interval" -> {
                     Node.allowOnly(body, "interval", INTERVAL);

@@ -9,14 +9,45 @@ import org.echotrellis.epg.GeneralEngine;
 
 /**
  * Runs a {@link Protocol} through the EPG engine: the real CPMG fast path when the protocol
- * qualifies ({@link Protocol#cpmg()}), the general complex engine otherwise. Thread-safe: engines
- * are kept one per thread.
+ * qualifies ({@link Protocol#cpmg()}), the general complex engine otherwise; a protocol whose
+ * acquisition is not ideal (slice-selective pulses, a repetition time, or diffusion with crushers) runs
+ * through its {@link AcquisitionModel} (the whole acquisition: slice integral, steady state, diffusion).
+ * Thread-safe: engines are kept one per thread; acquisition models are cached for the last few protocols.
  */
 public final class Simulator {
     private static final ThreadLocal<CpmgEngine> CPMG = ThreadLocal.withInitial(() -> new CpmgEngine(1));
     private static final ThreadLocal<GeneralEngine> GENERAL = ThreadLocal.withInitial(() -> new GeneralEngine(1));
 
+    private static final int CACHED_MODELS = 8;
+    private static final java.util.Map<Protocol, AcquisitionModel> MODELS = new java.util.LinkedHashMap<>(16, 0.75f, true) {
+        @Override
+        protected boolean removeEldestEntry(java.util.Map.Entry<Protocol, AcquisitionModel> e) {
+            return size() > CACHED_MODELS;
+        }
+    };
+
     private Simulator() { }
+
+    /**
+     * The acquisition model of a protocol for B1 up to {@code b1}, built once and cached.
+     *
+     * @param p protocol (shorthand train form)
+     * @param b1 largest B1 scale needed
+     * @return the model
+     */
+    public static AcquisitionModel model(Protocol p, double b1) {
+        synchronized (MODELS) {
+            AcquisitionModel m = MODELS.get(p);
+            if (m != null && m.b1Max() >= b1) {
+                return m;
+            }
+        }
+        AcquisitionModel m = AcquisitionModel.of(p, Math.max(2.0, 1.25 * b1));
+        synchronized (MODELS) {
+            MODELS.put(p, m);
+        }
+        return m;
+    }
 
     /** Simulates with the protocol's own tissue and B1 scale. */
     public static EchoTrain simulate(Protocol p) {
@@ -24,9 +55,13 @@ public final class Simulator {
     }
 
     /**
-     * Simulates one train.
+     * Simulates one train: the echo train of the whole acquisition the protocol describes — for a
+     * slice-selective protocol the integral across the slice per unit slice width (FWHM of the
+     * excitation profile), converged to 1e-4 of echo 1; with {@code repetition_ms} the steady state; with
+     * crushers diffusion at the protocol tissue's diffusivity. Without those keys: the ideal-pulse EPG.
      *
-     * @param p the protocol (its events; tissue and B1 are taken from the arguments)
+     * @param p the protocol (its events and acquisition; T1, T2 and B1 are taken from the arguments, the
+     *     diffusivity from its tissue)
      * @param t1Ms T1 in ms (+Infinity allowed)
      * @param t2Ms T2 in ms (+Infinity allowed)
      * @param b1 flip-angle scale applied to every pulse
@@ -40,7 +75,9 @@ public final class Simulator {
         int n = p.echoCount();
         double[] re = new double[n];
         double[] im = new double[n];
-        if (cpmg.isPresent()) {
+        if (!p.isIdealAcquisition()) {
+            model(p, b1).echoes(t1Ms, t2Ms, b1, re, im);
+        } else if (cpmg.isPresent()) {
             CpmgTrain t = cpmg.get();
             double[] v = CPMG.get().echoes(t, t1Ms, t2Ms, b1);
             double psi = Math.toRadians(t.excitationPhaseDeg() - 90.0);

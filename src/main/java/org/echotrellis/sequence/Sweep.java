@@ -37,6 +37,9 @@ public final class Sweep {
         int n = p.echoCount();
         double[][] out = new double[points][n];
         int blocks = (points + LANES - 1) / LANES;
+        if (!p.isIdealAcquisition()) {
+            return acquisition(p, t1Ms, t2Ms, b1, threads, progress, out);
+        }
         Optional<CpmgTrain> cpmg = p.cpmg();
         EpgProgram prog = cpmg.isPresent() ? null : p.program();
         ThreadLocal<Block> work = ThreadLocal.withInitial(() -> new Block(n));
@@ -67,6 +70,31 @@ public final class Sweep {
             }
             int d = done.addAndGet(cnt);
             if (progress != null) {
+                progress.accept(d);
+            }
+        });
+        java.util.concurrent.ForkJoinPool pool = new java.util.concurrent.ForkJoinPool(Math.max(1, threads));
+        try {
+            pool.submit(body).join();
+        } finally {
+            pool.shutdown();
+        }
+        return out;
+    }
+
+    /** The whole acquisition ({@link AcquisitionModel}, built once, one workspace per thread). */
+    private static double[][] acquisition(Protocol p, double[] t1Ms, double[] t2Ms, double[] b1, int threads,
+                                          IntConsumer progress, double[][] out) {
+        double b1Max = 0;
+        for (double v : b1) {
+            b1Max = Math.max(b1Max, v);
+        }
+        AcquisitionModel model = Simulator.model(p, b1Max);
+        AtomicInteger done = new AtomicInteger();
+        Runnable body = () -> IntStream.range(0, t2Ms.length).parallel().forEach(i -> {
+            model.magnitudes(t1Ms[i], t2Ms[i], b1[i], out[i]);
+            int d = done.incrementAndGet();
+            if (progress != null && (d % LANES == 0 || d == t2Ms.length)) {
                 progress.accept(d);
             }
         });

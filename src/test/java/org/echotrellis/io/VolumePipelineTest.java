@@ -183,8 +183,27 @@ class VolumePipelineTest {
         try (NiftiInput in = Nifti.open(f)) {
             InputException e = assertThrows(InputException.class,
                     () -> VolumeJob.of(in, Optional.of(wrong), Optional.empty()));
-            assertTrue(e.getMessage().contains("--mask m.nii"), e.getMessage());
+            assertTrue(e.getMessage().contains("mask m.nii"), e.getMessage());
             assertThrows(InputException.class, () -> VolumeJob.of(in, Optional.empty(), Optional.of(wrong)));
+        }
+    }
+
+    @Test
+    void rejectsMaskOfTheSameShapeWithAnotherAffine() {
+        double[] affine = {2, 0, 0, -30, 0, 2, 0, -40, 0, 0, 3, 10};
+        double[] shifted = affine.clone();
+        shifted[3] += 2;  // one voxel to the right
+        Path f = dir.resolve("a.nii");
+        Nifti.write(f, NiftiHeader.create(NiftiDatatype.FLOAT32, 4, 4, 2, 3).withAffine(affine, 1), new double[96], false);
+        NiftiImage same = NiftiImage.of(NiftiHeader.create(NiftiDatatype.UINT8, 4, 4, 2).withAffine(affine, 2),
+                new double[32], "same.nii");
+        NiftiImage other = NiftiImage.of(NiftiHeader.create(NiftiDatatype.UINT8, 4, 4, 2).withAffine(shifted, 1),
+                new double[32], "other.nii");
+        try (NiftiInput in = Nifti.open(f)) {
+            VolumeJob.of(in, Optional.of(same), Optional.of(same));
+            InputException e = assertThrows(InputException.class, () -> VolumeJob.of(in, Optional.of(other), Optional.empty()));
+            assertTrue(e.getMessage().contains("other.nii") && e.getMessage().contains("geometry"), e.getMessage());
+            assertThrows(InputException.class, () -> VolumeJob.of(in, Optional.empty(), Optional.of(other)));
         }
     }
 

@@ -11,7 +11,7 @@ import org.echotrellis.Checks;
  * @param loMs lower edge in ms
  * @param hiMs upper edge in ms
  */
-public record FractionWindow(double loMs, double hiMs) {
+public record FractionWindow(double loMs, double hiMs) implements java.io.Serializable {
 
     /** Default window 10–40 ms. */
     public static final FractionWindow DEFAULT = new FractionWindow(10, 40);

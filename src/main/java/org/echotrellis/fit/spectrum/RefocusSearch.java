@@ -12,7 +12,7 @@ import org.echotrellis.InputException;
  * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 180
  * @param count number of equally spaced angles (1 = fixed angle loDeg, else ≥ 3)
  */
-public record RefocusSearch(double loDeg, double hiDeg, int count) {
+public record RefocusSearch(double loDeg, double hiDeg, int count) implements java.io.Serializable {
 
     /** Default search: 8 angles from 50° to 180°. */
     public static final RefocusSearch DEFAULT = new RefocusSearch(50, 180, 8);

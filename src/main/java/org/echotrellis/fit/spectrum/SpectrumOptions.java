@@ -14,7 +14,8 @@ import org.echotrellis.Checks;
  * @param windows        T2 windows whose fractions are reported (at least one)
  */
 public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularisation, double misfitIncrease,
-                              RefocusSearch search, List<FractionWindow> windows) {
+                              RefocusSearch search, List<FractionWindow> windows)
+        implements java.io.Serializable {
 
     /** Defaults: 40 bins 10–2000 ms, T1 1 s, χ² factor 1.02, 8 angles 50–180°, window 10–40 ms. */
     public static final SpectrumOptions DEFAULT = new SpectrumOptions(T2Grid.DEFAULT, 1000, Regularisation.CHI2,

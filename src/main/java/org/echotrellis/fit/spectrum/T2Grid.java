@@ -10,7 +10,7 @@ import org.echotrellis.Checks;
  * @param maxMs longest T2 in ms (last bin)
  * @param bins number of grid points (≥ 2)
  */
-public record T2Grid(double minMs, double maxMs, int bins) {
+public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Serializable {
 
     /** Largest grid accepted; the solver workspaces are sized n², so this bounds memory. */
     public static final int MAX_BINS = 400;

@@ -1,4 +1,4 @@
-package org.echotrellis.cli;
+package org.echotrellis.fit.volume;
 
 import java.util.ArrayList;
 import java.util.List;

@@ -1,4 +1,4 @@
-package org.echotrellis.cli;
+package org.echotrellis.fit.volume;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -7,14 +7,14 @@ import org.echotrellis.fit.spectrum.SpectrumFitter;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
 
 /** Output names of the spectrum scalars (map file names, CSV columns, summary keys), in slot order. */
-final class SpectrumNames {
+public final class SpectrumNames {
     private SpectrumNames() { }
 
     /**
      * @param o fit options (windows)
      * @return names indexed by the scalar slots of {@link SpectrumFitter}
      */
-    static List<String> scalars(SpectrumOptions o) {
+    public static List<String> scalars(SpectrumOptions o) {
         String[] fixed = new String[6];
         fixed[SpectrumFitter.REFOCUS_DEG] = "refocus_deg";
         fixed[SpectrumFitter.CHI2] = "chi2";
@@ -31,19 +31,29 @@ final class SpectrumNames {
         return names;
     }
 
-    /** @return a number as a file-name token: 10 → "10", 12.5 → "12p5" */
-    static String tag(double v) {
+    /**
+     * @param v a number
+     * @return the number as a file-name token: 10 → "10", 12.5 → "12p5"
+     */
+    public static String tag(double v) {
         String s = v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
         return s.replace('.', 'p');
     }
 
-    /** @return the pipeline output name of bin j (one 3-D map, assembled into spectrum.nii.gz) */
-    static String binOutput(int j, double t2Ms) {
+    /**
+     * @param j bin index
+     * @param t2Ms the bin's T2 in ms
+     * @return the pipeline output name of bin j (one 3-D map, assembled into spectrum.nii.gz)
+     */
+    public static String binOutput(int j, double t2Ms) {
         return String.format(java.util.Locale.ROOT, "spectrum_%03d_%s", j, bin(t2Ms));
     }
 
-    /** @return the short label of a bin, e.g. "t2_10.00ms" */
-    static String bin(double t2Ms) {
+    /**
+     * @param t2Ms the bin's T2 in ms
+     * @return the short label of a bin, e.g. "t2_10.00ms"
+     */
+    public static String bin(double t2Ms) {
         return String.format(java.util.Locale.ROOT, "t2_%.4gms", t2Ms);
     }
 }

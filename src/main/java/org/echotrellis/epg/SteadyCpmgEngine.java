@@ -1,0 +1,247 @@
+package org.echotrellis.epg;
+
+import java.util.Arrays;
+import org.echotrellis.Checks;
+
+/**
+ * Real CPMG fast path with diffusion and the repetition-time steady state, several trains in lock-step
+ * lanes (lanes innermost). Ideal (non-selective) pulses, CPMG phases.
+ *
+ * <p>In the frame of the excitation (Meiboom &amp; Gill 1958; Hennig 1988) the coherences excited at
+ * t = 0 (the "odd" family: odd orders at every refocusing pulse, the only ones reaching k = 0 at the
+ * echoes) keep every F<sub>k</sub> real and Z<sub>k</sub> = i&middot;q<sub>k</sub> imaginary; the longitudinal
+ * magnetization left by the excitation and its T1 recovery (the "even" family, which alone sets
+ * Z<sub>0</sub> at the end of the train) keep F<sub>k</sub> = i&middot;u<sub>k</sub> imaginary and Z<sub>k</sub> real. So
+ * both run in real arithmetic. F is stored for signed orders (F&minus;<sub>k</sub> = conj F<sub>&minus;k</sub>), the
+ * dephasing shift moves an offset.
+ *
+ * <p>Diffusion (Weigel, Schwenk, Kiselev, Scheffler &amp; Hennig, J Magn Reson 205:276, 2010) enters
+ * through per-order factors over the half echo spacing before and after a pulse, given by the caller.
+ * Steady state with ideal spoiling: Z<sub>0</sub> at the last echo is a&middot;M + b for the longitudinal
+ * magnetization M before the excitation; the fixed point after recovery over TR &minus; N&middot;ESP is
+ * M = (bE + 1 &minus; E)/(1 &minus; aE), E = exp(&minus;(TR &minus; N&middot;ESP)/T1), and the echoes scale with M.
+ *
+ * <p>Not thread-safe: one engine per thread; allocation-free after the first run of a given length.
+ */
+public final class SteadyCpmgEngine {
+    private final int lanes;
+    private double[] f = new double[0];
+    private double[] z = new double[0];
+    private final double[] e2h;
+    private final double[] e1h;
+    private final double[] rec;
+    private final double[] c2;
+    private final double[] s2;
+    private final double[] sn;
+    private final double[] cs;
+    private final double[] ma;
+    private final double[] mb;
+    private final double[] work;
+
+    /** @param lanes trains in lock-step (1 to 64) */
+    public SteadyCpmgEngine(int lanes) {
+        this.lanes = Checks.inRange("lanes", lanes, 1, 64, null);
+        e2h = new double[lanes];
+        e1h = new double[lanes];
+        rec = new double[lanes];
+        c2 = new double[lanes];
+        s2 = new double[lanes];
+        sn = new double[lanes];
+        cs = new double[lanes];
+        ma = new double[lanes];
+        mb = new double[lanes];
+        work = new double[lanes];
+    }
+
+    /** @return the number of lanes */
+    public int lanes() {
+        return lanes;
+    }
+
+    /**
+     * Length of the diffusion factor arrays for N echoes: signed orders &minus;(2N+2)..(2N+2).
+     *
+     * @param echoes N
+     * @return the length
+     */
+    public static int factorLength(int echoes) {
+        return 2 * (2 * echoes + 2) + 1;
+    }
+
+    /**
+     * @param train the schedule (CPMG-phased)
+     * @param dPre factor of an F state over the half before a pulse, index = signed starting order + 2N + 2
+     * @param dPost the same over the half after a pulse
+     * @param dZ factor of Z<sub>k</sub> over a half echo spacing, index k
+     * @param repetitionMs TR in ms (+Infinity: one train from equilibrium)
+     * @param t1Ms T1 per lane; not modified
+     * @param t2Ms T2 per lane; not modified
+     * @param b1 B1 per lane; not modified
+     * @param count lanes used
+     * @param out out[l*N + n] = signed echo n+1 of lane l in the CPMG frame; modified
+     */
+    public void run(CpmgTrain train, double[] dPre, double[] dPost, double[] dZ, double repetitionMs,
+                    double[] t1Ms, double[] t2Ms, double[] b1, int count, double[] out) {
+        if (count < 1 || count > lanes || !train.isCpmgPhased()) {
+            throw new IllegalArgumentException("count within [1, lanes] and a CPMG-phased train needed");
+        }
+        int n = train.echoes();
+        int nl = lanes;
+        double esp = train.echoSpacingMs();
+        double exc = Math.toRadians(train.excitationFlipDeg());
+        boolean tr = Double.isFinite(repetitionMs);
+        for (int l = 0; l < nl; l++) {
+            int s = l < count ? l : 0;
+            e2h[l] = Math.exp(-0.5 * esp / t2Ms[s]);
+            e1h[l] = Math.exp(-0.5 * esp / t1Ms[s]);
+            ma[l] = 1;
+        }
+        if (tr) {
+            // a: Z0 at the end from cos(excitation) without recovery; b: from 0 with recovery
+            Arrays.fill(rec, 0);
+            for (int l = 0; l < nl; l++) {
+                int s = l < count ? l : 0;
+                work[l] = Math.cos(b1[s] * exc);
+            }
+            family(train, false, dPre, dPost, dZ, b1, count, work, ma, null);
+            for (int l = 0; l < nl; l++) {
+                rec[l] = 1 - e1h[l];
+                work[l] = 0;
+            }
+            family(train, false, dPre, dPost, dZ, b1, count, work, mb, null);
+            for (int l = 0; l < nl; l++) {
+                int s = l < count ? l : 0;
+                double e = Math.exp(-(repetitionMs - n * esp) / t1Ms[s]);
+                double a = ma[l];
+                ma[l] = (mb[l] * e + 1 - e) / (1 - a * e);
+            }
+        }
+        Arrays.fill(rec, 0);
+        for (int l = 0; l < nl; l++) {
+            int s = l < count ? l : 0;
+            work[l] = ma[l] * Math.sin(b1[s] * exc);
+        }
+        family(train, true, dPre, dPost, dZ, b1, count, work, null, out);
+    }
+
+    private void family(CpmgTrain train, boolean odd, double[] dPre, double[] dPost, double[] dZ, double[] b1,
+                        int count, double[] init, double[] z0End, double[] out) {
+        final int n = train.echoes();
+        final int nl = lanes;
+        final int kmax = 2 * n + 2;
+        final int base0 = kmax + 2 * n + 1;
+        final int len = (base0 + kmax + 2) * nl;
+        if (f.length < len) {
+            f = new double[len];
+            z = new double[(kmax + 2) * nl];
+        }
+        Arrays.fill(f, 0, len, 0.0);
+        Arrays.fill(z, 0, (kmax + 2) * nl, 0.0);
+        int base = base0;
+        for (int l = 0; l < nl; l++) {
+            if (odd) {
+                f[base * nl + l] = init[l];
+            } else {
+                z[l] = init[l];
+            }
+        }
+        double lastFlip = Double.NaN;
+        for (int p = 1; p <= n; p++) {
+            int bound = odd ? Math.min(2 * p - 1, 2 * (n - p) + 1) : Math.min(2 * p - 2, 2 * (n - p));
+            half(base, -bound - 1, bound, dPre, dZ, kmax, odd);
+            base--;
+            double flip = Math.toRadians(train.refocusFlipDeg(p - 1)) * train.refocusSign(p - 1);
+            if (flip != lastFlip) {
+                for (int l = 0; l < nl; l++) {
+                    double a = (l < count ? b1[l] : 1.0) * flip;
+                    double h = Math.cos(0.5 * a);
+                    c2[l] = h * h;
+                    s2[l] = 1 - h * h;
+                    sn[l] = Math.sin(a);
+                    cs[l] = Math.cos(a);
+                }
+                lastFlip = flip;
+            }
+            if (odd) {
+                mixOdd(base, bound);
+            } else {
+                mixEven(base, bound);
+            }
+            half(base, -bound, bound, dPost, dZ, kmax, odd);
+            base--;
+            if (odd) {
+                int ib = base * nl;
+                for (int l = 0; l < count; l++) {
+                    out[l * n + p - 1] = f[ib + l];
+                }
+            }
+        }
+        if (!odd) {
+            System.arraycopy(z, 0, z0End, 0, nl);
+        }
+    }
+
+    /** Relaxation and diffusion over a half echo spacing; only the family's parity is touched. */
+    private void half(int base, int lo, int hi, double[] d, double[] dZ, int kmax, boolean odd) {
+        final int nl = lanes;
+        final int off = kmax;
+        for (int k = lo; k <= hi; k += 2) {
+            double g = d[k + off];
+            int o = (base + k) * nl;
+            for (int l = 0; l < nl; l++) {
+                f[o + l] *= e2h[l] * g;
+            }
+        }
+        for (int k = odd ? 1 : 2; k <= hi; k += 2) {
+            double g = dZ[k];
+            int o = k * nl;
+            for (int l = 0; l < nl; l++) {
+                z[o + l] *= e1h[l] * g;
+            }
+        }
+        for (int l = 0; l < nl; l++) {
+            z[l] = e1h[l] * z[l] + rec[l];
+        }
+    }
+
+    private void mixOdd(int base, int bound) {
+        final int nl = lanes;
+        for (int k = 1; k <= bound; k += 2) {
+            int ip = (base + k) * nl;
+            int im = (base - k) * nl;
+            int iz = k * nl;
+            for (int l = 0; l < nl; l++) {
+                double x = f[ip + l];
+                double y = f[im + l];
+                double q = z[iz + l];
+                f[ip + l] = c2[l] * x + s2[l] * y + sn[l] * q;
+                f[im + l] = s2[l] * x + c2[l] * y - sn[l] * q;
+                z[iz + l] = cs[l] * q - 0.5 * sn[l] * (x - y);
+            }
+        }
+    }
+
+    private void mixEven(int base, int bound) {
+        final int nl = lanes;
+        int i0 = base * nl;
+        for (int l = 0; l < nl; l++) {
+            double u = f[i0 + l];
+            double r = z[l];
+            f[i0 + l] = cs[l] * u - sn[l] * r;
+            z[l] = sn[l] * u + cs[l] * r;
+        }
+        for (int k = 2; k <= bound; k += 2) {
+            int ip = (base + k) * nl;
+            int im = (base - k) * nl;
+            int iz = k * nl;
+            for (int l = 0; l < nl; l++) {
+                double u = f[ip + l];
+                double v = f[im + l];
+                double r = z[iz + l];
+                f[ip + l] = c2[l] * u - s2[l] * v - sn[l] * r;
+                f[im + l] = -s2[l] * u + c2[l] * v - sn[l] * r;
+                z[iz + l] = 0.5 * sn[l] * (u + v) + cs[l] * r;
+            }
+        }
+    }
+}

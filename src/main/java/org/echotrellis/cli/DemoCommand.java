@@ -60,8 +60,12 @@ public final class DemoCommand implements Callable<Integer> {
                 ctx.err().flush();
             }
             long t0 = System.nanoTime();
+            int notes = log.size();
             s.run(ctx);
-            log.add(String.format(java.util.Locale.ROOT, "%-78s %6.1f s", s.title(), (System.nanoTime() - t0) * 1e-9));
+            log.add(notes, String.format(java.util.Locale.ROOT, "%5.1f s  %s", (System.nanoTime() - t0) * 1e-9, s.title()));
+            for (int i = notes + 1; i < log.size(); i++) {
+                log.set(i, "         " + log.get(i));
+            }
         }
         AtomicFiles.writeString(out.resolve("summary.md"), summary.toString(), true);
         long figures;

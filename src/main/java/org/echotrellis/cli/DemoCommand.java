@@ -24,7 +24,8 @@ public final class DemoCommand implements Callable<Integer> {
             new PathwayDemo(),
             new FitDemo(),
             new SpectrumDemo(),
-            new DesignDemo());
+            new DesignDemo(),
+            new ImageDemo());
 
     @Mixin
     CommonOptions common;

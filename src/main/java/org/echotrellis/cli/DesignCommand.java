@@ -39,7 +39,8 @@ import picocli.CommandLine.Spec;
             "RF figures are estimates for planning only: the scanner's own SAR monitor, local regulations and "
                 + "the responsible MR physicist decide."},
         footer = {"", "Targets: constant:LEVEL, ramp:FIRST:LAST, decay:PSEUDO_T2_MS[:START], list:FILE",
-            "Objectives: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B]",
+            "Objectives: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B],",
+            "  psf:ECHO:LINES[:TISSUE[:MIN_SIGNAL[:MAX_SIDELOBE]]] (value 1/FWHM), cnr:ECHO:LINES:MAX_FWHM_PX:TISSUE_A[:TISSUE_B]",
             "", "Examples:",
             "  java -jar target/echotrellis.jar design \\",
             "      --protocol sequences/fse-variable-1p5t.yaml \\",

@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
         description = "Extended-phase-graph tools for multi-echo spin-echo MR: simulate echo trains, "
                 + "trace coherence pathways, fit T2 and B1, compute T2 spectra and design refocusing schedules.",
         subcommands = {SimulateCommand.class, PathwaysCommand.class, FitCommand.class, SpectrumCommand.class,
-            DesignCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
+            DesignCommand.class, ImageCommand.class, CohortCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Example:", "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
             "      --b1 0.8 --plot knee.png",
             "", "Research and protocol-planning tool, not a medical device."})

@@ -119,7 +119,7 @@ public final class SimulateCommand implements Callable<Integer> {
                         Simulator.simulate(p, t.t1Ms(), t.t2Ms(), CliChecks.b1("--plot-b1", extra)));
             }
             for (String spec : plotTissues) {
-                Tissue extra = TissueSpec.parse("--plot-tissue", spec);
+                Tissue extra = TissueOption.parse(spec, "--plot-tissue");
                 ep.train(tissueLabel(extra) + String.format(Locale.ROOT, ", B1 %.2f", scale),
                         Simulator.simulate(p, extra.t1Ms(), extra.t2Ms(), scale));
             }
@@ -154,7 +154,7 @@ public final class SimulateCommand implements Callable<Integer> {
                 CliChecks.b1("--plot-b1", extra);
             }
             for (String spec : plotTissues) {
-                TissueSpec.parse("--plot-tissue", spec);
+                TissueOption.parse(spec, "--plot-tissue");
             }
             return;
         }

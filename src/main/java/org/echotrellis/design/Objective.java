@@ -11,8 +11,21 @@ import org.echotrellis.InputException;
  * <li>{@code signal:ECHO} — |echo| of the design tissue at the effective echo;</li>
  * <li>{@code min:FROM:TO} — the smallest |echo| of the design tissue over a window;</li>
  * <li>{@code contrast:ECHO:TISSUE_A[:TISSUE_B]} — ||S_A| − |S_B|| at the effective echo
- *     (TISSUE_B defaults to the design tissue).</li>
+ *     (TISSUE_B defaults to the design tissue);</li>
+ * <li>{@code psf:ECHO:LINES[:TISSUE[:MIN_SIGNAL[:MAX_SIDELOBE]]]} — the narrowest point-spread
+ *     function of TISSUE (default: the design tissue) for LINES phase-encoding lines in linear
+ *     ordering with echo ECHO at k = 0 (effective TE = ECHO × echo spacing), among schedules whose
+ *     centre weight is at least MIN_SIGNAL (default 0) and whose largest side lobe is at most
+ *     MAX_SIDELOBE of the peak (default 0.05: a spike of weight at k = 0 narrows the main lobe but
+ *     spreads the rest into a pedestal); the value maximised is 1 / FWHM in 1/px (a schedule below
+ *     the signal floor scores centre / MIN_SIGNAL − 1, one over the side-lobe limit minus its excess,
+ *     both below 0);</li>
+ * <li>{@code cnr:ECHO:LINES:MAX_FWHM_PX:TISSUE_A[:TISSUE_B]} — the largest contrast of the centre
+ *     weights (the CNR for unit noise per pixel) in the same ordering, among schedules whose PSF
+ *     FWHM is at most MAX_FWHM_PX for both tissues (a schedule over the width scores minus its
+ *     excess width in px).</li>
  * </ul>
+ * The image figures are those of {@link org.echotrellis.image.PointSpread}.
  */
 public sealed interface Objective {
     /** @return option syntax */
@@ -88,6 +101,77 @@ public sealed interface Objective {
     }
 
     /**
+     * Narrowest PSF (largest 1 / FWHM) of one tissue, linear ordering with echo {@code echo} at k = 0.
+     *
+     * @param echo 1-based echo at k = 0
+     * @param lines phase-encoding lines (a multiple of {@code echoes})
+     * @param echoes echoes of the train
+     * @param name tissue @param t1 its T1 in ms @param t2 its T2 in ms
+     * @param minSignal smallest acceptable centre weight (0 for none)
+     * @param maxSidelobe largest acceptable side lobe relative to the PSF peak
+     */
+    record PsfWidth(int echo, int lines, int echoes, String name, double t1, double t2, double minSignal,
+                    double maxSidelobe) implements Objective {
+        /** Side-lobe limit when none is given. */
+        public static final double DEFAULT_MAX_SIDELOBE = 0.05;
+
+        /** Validates. */
+        public PsfWidth {
+            Checks.inRange("--objective psf ECHO", echo, 1, echoes, null);
+            org.echotrellis.image.KSpaceOrdering.linear(lines, echoes, echo);
+            Checks.positiveOrInfinite("t1_ms of " + name, t1, "--objective");
+            Checks.positiveOrInfinite("t2_ms of " + name, t2, "--objective");
+            Checks.inRange("--objective psf MIN_SIGNAL", minSignal, 0, 1, null);
+            Checks.inRange("--objective psf MAX_SIDELOBE", maxSidelobe, 0, 1, null);
+        }
+
+        @Override
+        public String spec() {
+            return "psf:" + echo + ":" + lines + ":" + name + ":" + minSignal + ":" + maxSidelobe;
+        }
+
+        @Override
+        public int lastEcho() {
+            return echoes;
+        }
+    }
+
+    /**
+     * Largest contrast of the centre weights of two tissues whose PSFs are at most {@code maxFwhmPx}
+     * wide, linear ordering with echo {@code echo} at k = 0.
+     *
+     * @param echo 1-based echo at k = 0
+     * @param lines phase-encoding lines (a multiple of {@code echoes})
+     * @param echoes echoes of the train
+     * @param maxFwhmPx largest allowed FWHM in px (≥ 1, the delta)
+     * @param nameA first tissue @param t1A its T1 in ms @param t2A its T2 in ms
+     * @param nameB second tissue @param t1B its T1 in ms @param t2B its T2 in ms
+     */
+    record ContrastAtWidth(int echo, int lines, int echoes, double maxFwhmPx, String nameA, double t1A, double t2A,
+                           String nameB, double t1B, double t2B) implements Objective {
+        /** Validates. */
+        public ContrastAtWidth {
+            Checks.inRange("--objective cnr ECHO", echo, 1, echoes, null);
+            org.echotrellis.image.KSpaceOrdering.linear(lines, echoes, echo);
+            Checks.inRange("--objective cnr MAX_FWHM_PX", maxFwhmPx, 1, lines, null);
+            Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "--objective");
+            Checks.positiveOrInfinite("t2_ms of " + nameA, t2A, "--objective");
+            Checks.positiveOrInfinite("t1_ms of " + nameB, t1B, "--objective");
+            Checks.positiveOrInfinite("t2_ms of " + nameB, t2B, "--objective");
+        }
+
+        @Override
+        public String spec() {
+            return "cnr:" + echo + ":" + lines + ":" + maxFwhmPx + ":" + nameA + ":" + nameB;
+        }
+
+        @Override
+        public int lastEcho() {
+            return echoes;
+        }
+    }
+
+    /**
      * Parses the option.
      *
      * @param spec option value
@@ -99,7 +183,8 @@ public sealed interface Objective {
     static Objective parse(String spec, DesignProblem design, Function<String, double[]> tissues) {
         String s = spec == null ? "" : spec.trim();
         String[] p = s.split(":", -1);
-        String allowed = "allowed: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B]";
+        String allowed = "allowed: signal:ECHO, min:FROM:TO, contrast:ECHO:TISSUE_A[:TISSUE_B], "
+                + "psf:ECHO:LINES[:TISSUE[:MIN_SIGNAL[:MAX_SIDELOBE]]], cnr:ECHO:LINES:MAX_FWHM_PX:TISSUE_A[:TISSUE_B]";
         Objective o;
         try {
             switch (p[0]) {
@@ -118,11 +203,30 @@ public sealed interface Objective {
                     double[] b = p.length == 4 ? tissues.apply(p[3]) : new double[] {design.t1Ms(), design.t2Ms()};
                     o = new Contrast(Integer.parseInt(p[1]), p[2], a[0], a[1], nameB, b[0], b[1]);
                     break;
+                case "psf": {
+                    Checks.require(p.length >= 3 && p.length <= 6, "--objective " + spec + ": " + allowed);
+                    String name = p.length >= 4 ? p[3] : design.tissueName();
+                    double[] t = p.length >= 4 ? tissues.apply(p[3]) : new double[] {design.t1Ms(), design.t2Ms()};
+                    o = new PsfWidth(Integer.parseInt(p[1]), Integer.parseInt(p[2]), design.echoes(), name, t[0], t[1],
+                            p.length >= 5 ? Double.parseDouble(p[4]) : 0,
+                            p.length == 6 ? Double.parseDouble(p[5]) : PsfWidth.DEFAULT_MAX_SIDELOBE);
+                    break;
+                }
+                case "cnr": {
+                    Checks.require(p.length == 5 || p.length == 6, "--objective " + spec + ": " + allowed);
+                    double[] ta = tissues.apply(p[4]);
+                    String second = p.length == 6 ? p[5] : design.tissueName();
+                    double[] tb = p.length == 6 ? tissues.apply(p[5]) : new double[] {design.t1Ms(), design.t2Ms()};
+                    o = new ContrastAtWidth(Integer.parseInt(p[1]), Integer.parseInt(p[2]), design.echoes(),
+                            Double.parseDouble(p[3]), p[4], ta[0], ta[1], second, tb[0], tb[1]);
+                    break;
+                }
                 default:
                     throw new InputException("--objective " + spec + " is not understood; " + allowed);
             }
         } catch (NumberFormatException e) {
-            throw new InputException("--objective " + spec + ": echo indices must be integers; " + allowed);
+            throw new InputException("--objective " + spec + ": echo indices and line counts must be integers "
+                    + "(MAX_FWHM_PX a number); " + allowed);
         }
         Checks.require(o.lastEcho() <= design.echoes(), "--objective " + spec + " refers to echo "
                 + o.lastEcho() + " but the train has " + design.echoes() + " echoes");

@@ -7,6 +7,7 @@ package org.echotrellis.design;
 public final class ObjectiveEvaluator {
     private final CpmgStepper stepper = new CpmgStepper();
     private double[] echoes = new double[0];
+    private final ImageObjectives image = new ImageObjectives();
 
     /** Creates an evaluator with its own workspace. */
     public ObjectiveEvaluator() { }
@@ -29,6 +30,9 @@ public final class ObjectiveEvaluator {
                 min = Math.min(min, Math.abs(echoes[i]));
             }
             return min;
+        }
+        if (objective instanceof Objective.PsfWidth || objective instanceof Objective.ContrastAtWidth) {
+            return image.value(objective, problem, flipsDeg);
         }
         Objective.Contrast c = (Objective.Contrast) objective;
         simulate(problem, c.t1A(), c.t2A(), flipsDeg, c.echo());

@@ -8,7 +8,8 @@
  * planning only: the scanner's own SAR monitor, local regulations and the responsible MR
  * physicist decide.
  *
- * <p>This package may use {@code org.echotrellis.epg} and {@code org.echotrellis.sequence}; it must
+ * <p>This package may use {@code org.echotrellis.epg}, {@code org.echotrellis.sequence} and {@code
+ * org.echotrellis.image} (objectives on image figures); it must
  * not import {@code io}, {@code plot}, {@code cli}, {@code fit} or {@code pathway}.
  */
 package org.echotrellis.design;

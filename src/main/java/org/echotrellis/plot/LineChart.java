@@ -50,6 +50,8 @@ public final class LineChart {
     private boolean xFromZero;
     private Double yMin;
     private Double yMax;
+    private Double xMin;
+    private Double xMax;
 
     private LineChart(String title, String xLabel, String yLabel) {
         this.title = title;
@@ -106,6 +108,13 @@ public final class LineChart {
         return this;
     }
 
+    /** Fixes the x range (linear x axis only). */
+    public LineChart xRange(double min, double max) {
+        this.xMin = min;
+        this.xMax = max;
+        return this;
+    }
+
     /** @return the styled chart */
     public JFreeChart build() {
         DefaultXYDataset data = new DefaultXYDataset();
@@ -147,6 +156,9 @@ public final class LineChart {
         } else {
             NumberAxis x = new NumberAxis(xLabel);
             x.setAutoRangeIncludesZero(xFromZero);
+            if (xMin != null) {
+                x.setRange(xMin, xMax);
+            }
             plot = new XYPlot(data, x, y, r);
         }
         plot.setOrientation(PlotOrientation.VERTICAL);

@@ -1,0 +1,57 @@
+package org.echotrellis.cohort;
+
+import java.io.Serializable;
+import java.util.List;
+
+import org.apache.hadoop.fs.Path;
+import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.volume.FitOptions;
+import org.echotrellis.sequence.ProtocolText;
+
+/**
+ * A cohort run as plain serialisable values, shipped to every task: where to read and write, which
+ * analyses with which settings, and how to summarise. Heavy objects (analyses, kernels, workspaces)
+ * are built from it on the executors.
+ *
+ * @param bidsDir the BIDS dataset (local path or URI)
+ * @param outputDir the derivatives dataset (local path or URI)
+ * @param participants subject labels to process; empty for all
+ * @param fit the fit settings, or null for no fit
+ * @param spectrum the spectrum settings, or null for no spectrum
+ * @param protocol a protocol file supplying what sidecars cannot, or null
+ * @param labels {@code dseg}, a label-image pattern, or null for whole-mask rows
+ * @param force redo units whose outputs exist
+ * @param threadsPerTask worker threads of one task's volume pipeline (the cores a task holds)
+ * @param slabValues doubles per slab buffer of the volume pipeline (two are held per task)
+ * @param commandLine the command line, for the derivatives' provenance
+ */
+public record CohortRequest(String bidsDir, String outputDir, List<String> participants, FitOptions fit,
+                            SpectrumOptions spectrum, ProtocolText protocol, String labels, boolean force,
+                            int threadsPerTask, long slabValues, String commandLine) implements Serializable {
+    private static final long serialVersionUID = 1L;
+
+    /** Copies the list; checks that at least one analysis is requested. */
+    public CohortRequest {
+        participants = List.copyOf(participants);
+        if (fit == null && spectrum == null) {
+            throw new IllegalArgumentException("a cohort request needs fit or spectrum settings");
+        }
+        if (threadsPerTask < 1 || slabValues < 1) {
+            throw new IllegalArgumentException("threadsPerTask and slabValues must be >= 1");
+        }
+    }
+
+    /** @return the subject/session units of the dataset, filtered by participant */
+    List<SubjectUnit> discover() {
+        return Units.list(Storage.path(bidsDir), participants);
+    }
+
+    /**
+     * Creates the output dataset and its description if absent.
+     *
+     * @param out the output directory
+     */
+    void prepareOutput(Path out) {
+        Derivatives.describe(out, commandLine);
+    }
+}

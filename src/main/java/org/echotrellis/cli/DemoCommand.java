@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.echotrellis.InputException;
 import org.echotrellis.io.AtomicFiles;
+import org.echotrellis.io.OutputSet;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -39,16 +40,30 @@ public final class DemoCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress messages.")
     boolean quiet;
 
+    @Option(names = "--force", description = "Replace existing files the demo did not write itself "
+            + "(files listed in the directory's " + OutputSet.MANIFEST + " are always replaced).")
+    boolean force;
+
     @Override
     public Integer call() throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
-        try {
-            Files.createDirectories(out);
-        } catch (java.io.IOException e) {
-            throw new InputException("--out " + out + ": cannot create the directory (" + e.getMessage() + ")", e);
+        Path parent = out.toAbsolutePath().getParent();
+        if (parent != null && Files.exists(parent) && !Files.isDirectory(parent)) {
+            throw new InputException("--out " + out + ": cannot create the directory (" + parent + " is not a directory)");
         }
+        try (OutputSet set = OutputSet.openOwn(out, force, List.of())) {
+            set.plan(OWN_FILES);
+            run(set);
+        }
+        return 0;
+    }
+
+    /** Files every demo run writes; checked before the demo starts. */
+    private static final List<String> OWN_FILES = List.of("summary.md");
+
+    private void run(OutputSet set) throws Exception {
         StringBuilder summary = new StringBuilder("# echotrellis demo summary\n\n"
                 + "All protocols, tissues and phantoms here are invented scenarios for demonstration.\n\n");
         java.util.List<String> log = new java.util.ArrayList<>();
@@ -68,7 +83,8 @@ public final class DemoCommand implements Callable<Integer> {
                 log.set(i, "         " + log.get(i));
             }
         }
-        AtomicFiles.writeString(out.resolve("summary.md"), summary.toString(), true);
+        AtomicFiles.writeString(out.resolve("summary.md"), summary.toString(), force);
+        set.commit();
         long figures;
         try (java.util.stream.Stream<Path> files = Files.list(out)) {
             figures = files.filter(f -> f.getFileName().toString().endsWith(".png")).count();
@@ -80,6 +96,5 @@ public final class DemoCommand implements Callable<Integer> {
         o.printf(java.util.Locale.ROOT, "wrote %d figures (.png and .svg) and %s in %.1f s; the findings are in summary.md%n",
                 figures, out.resolve("summary.md"), (System.nanoTime() - start) * 1e-9);
         o.flush();
-        return 0;
     }
 }

@@ -28,4 +28,9 @@ public record DemoContext(Path outDir, boolean force, StringBuilder summary, Pri
     public Path file(String name) {
         return outDir.resolve(name);
     }
+
+    /** @return where a file this demo run wrote can be read back (outputs are staged until the end) */
+    public Path written(String name) {
+        return org.echotrellis.io.OutputSet.readable(file(name));
+    }
 }

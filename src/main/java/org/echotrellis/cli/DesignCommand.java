@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.design.DesignJob;
 import org.echotrellis.design.DesignProblem;
 import org.echotrellis.design.DesignReport;
@@ -23,6 +24,7 @@ import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
 import org.echotrellis.sequence.Tissue;
 import org.echotrellis.sequence.TissuePresets;
+import picocli.CommandLine;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -94,7 +96,7 @@ public final class DesignCommand implements Callable<Integer> {
     @Option(names = "--b1rms-limit-ut", paramLabel = "UT", description = "B1+rms limit in µT (needs --tr-ms).")
     Double b1rmsLimitUt;
 
-    @Option(names = "--tr-ms", paramLabel = "MS", description = "Repetition time in ms, for B1+rms.")
+    @Option(names = "--tr-ms", paramLabel = "MS", description = "Repetition time in ms, for B1+rms; overrides the protocol's repetition_ms.")
     Double trMs;
 
     @Option(names = "--slices", paramLabel = "N", defaultValue = "1",
@@ -102,21 +104,23 @@ public final class DesignCommand implements Callable<Integer> {
     int slices;
 
     @Option(names = "--pulse", paramLabel = "SHAPE", defaultValue = "sinc:4",
-            description = "Refocusing pulse: rect, sinc:TBW, gauss:TBW or file:PATH (default: ${DEFAULT-VALUE}).")
+            description = "Refocusing pulse: rect, sinc:TBW, gauss:TBW or file:PATH; overrides the protocol's "
+                    + "refocusing pulse (default: the protocol's, else ${DEFAULT-VALUE}).")
     String pulse;
 
     @Option(names = "--pulse-ms", paramLabel = "MS", defaultValue = "2",
-            description = "Refocusing pulse duration in ms (default: ${DEFAULT-VALUE}).")
+            description = "Refocusing pulse duration in ms; overrides the protocol's (default: the protocol's, else ${DEFAULT-VALUE}).")
     double pulseMs;
 
-    @Option(names = "--excitation-pulse", paramLabel = "SHAPE", description = "Excitation pulse shape (default: --pulse).")
+    @Option(names = "--excitation-pulse", paramLabel = "SHAPE", description = "Excitation pulse shape; overrides the protocol's (default: the protocol's, else --pulse).")
     String excitationPulse;
 
-    @Option(names = "--excitation-pulse-ms", paramLabel = "MS", description = "Excitation pulse duration (default: --pulse-ms).")
+    @Option(names = "--excitation-pulse-ms", paramLabel = "MS", description = "Excitation pulse duration; overrides the protocol's (default: the protocol's, else --pulse-ms).")
     Double excitationPulseMs;
 
     @Option(names = "--knots", paramLabel = "K", defaultValue = "6",
-            description = "Spline knots of the schedule for --objective (default: ${DEFAULT-VALUE}).")
+            description = "Spline knots of the schedule for --objective, 2 to 32; fewer when the objective "
+                    + "spans fewer echoes (default: ${DEFAULT-VALUE}).")
     int knots;
 
     @Option(names = "--max-evaluations", paramLabel = "N", defaultValue = "3000",
@@ -174,17 +178,40 @@ public final class DesignCommand implements Callable<Integer> {
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException(protocol
                 + ": design needs a CPMG echo train (train: shorthand or CPMG-phased event list)"));
         Tissue tissue = designTissue == null ? p.tissue() : TissuePresets.get(designTissue);
+        if (designTissue == null && ProtocolReader.tissueAssumed(p)) {
+            spec.commandLine().getErr().println("note: " + protocol + " has no tissue section; designing for T1 "
+                    + Tables.num(tissue.t1Ms()) + " ms, T2 " + Tables.num(tissue.t2Ms()) + " ms (add tissue: or give --design-tissue)");
+        }
         String tissueName = tissue.name() == null || tissue.name().isEmpty() ? "design tissue" : tissue.name();
         DesignProblem problem = new DesignProblem(tissueName, train.echoes(), train.echoSpacingMs(),
                 train.excitationFlipDeg(), tissue.t1Ms(), tissue.t2Ms(), p.b1Scale(), minFlipDeg, maxFlipDeg);
+        checkTiming(train);
         ExposureLimits limits = new ExposureLimits(sarBudget,
                 b1rmsLimitUt == null ? Double.POSITIVE_INFINITY : Checks.positive("--b1rms-limit-ut", b1rmsLimitUt, null));
-        RfExposure rf = rf();
+        RfExposure rf = rf(p);
         SarReference reference = reference(p, train, rf);
         List<Tissue> compare = compareTissues(tissueName);
-        if (out != null) {
-            DesignOutputs.checkWritable(out, force);
+        try (OutputSet set = out == null ? null : DesignOutputs.open(out, force, inputs())) {
+            return run(p, problem, limits, rf, reference, compare, set);
         }
+    }
+
+    /** Input files of this run, never written over. */
+    private List<Path> inputs() {
+        List<Path> in = new ArrayList<>(java.util.Arrays.asList(protocol, referenceProtocol));
+        if (goal.target != null && goal.target.startsWith("list:")) {
+            in.add(Path.of(goal.target.substring(5)));
+        }
+        for (String shape : java.util.Arrays.asList(pulse, excitationPulse)) {
+            if (shape != null && !shape.contains(":")) {
+                in.add(Path.of(shape));
+            }
+        }
+        return in;
+    }
+
+    private int run(Protocol p, DesignProblem problem, ExposureLimits limits, RfExposure rf, SarReference reference,
+            List<Tissue> compare, OutputSet set) {
         PrintWriter err = spec.commandLine().getErr();
         DesignReport report;
         if (goal.target != null) {
@@ -205,6 +232,7 @@ public final class DesignCommand implements Callable<Integer> {
         if (out != null) {
             String protocolName = name != null ? name : p.name() + "-designed";
             DesignOutputs.write(report, out, protocolName, force);
+            set.commit();
             if (!quiet) {
                 err.println("design: wrote " + out.resolve(DesignOutputs.SCHEDULE_FILE) + ", design.json and plots");
                 err.flush();
@@ -232,11 +260,45 @@ public final class DesignCommand implements Callable<Integer> {
                 + limitsText + "; " + reachable + " (give --keep-over-limits to report and write it anyway)");
     }
 
-    private RfExposure rf() {
-        PulseShape refocus = PulseShape.parse(pulse, "--pulse");
-        PulseShape exc = excitationPulse == null ? refocus : PulseShape.parse(excitationPulse, "--excitation-pulse");
-        double excMs = excitationPulseMs == null ? pulseMs : excitationPulseMs;
-        return new RfExposure(refocus, pulseMs, exc, excMs, trMs == null ? Double.NaN : trMs, slices);
+    /** TR must hold the trains played in it; the knot count follows one stated rule. */
+    private void checkTiming(CpmgTrain train) {
+        double trainMs = train.echoes() * train.echoSpacingMs();
+        if (trMs != null && Double.isFinite(trMs) && trMs < slices * trainMs) {
+            throw new InputException(String.format(java.util.Locale.ROOT, "--tr-ms %s is shorter than the %s ms of echo "
+                    + "trains it must hold (%d slice(s) x %d echoes x %s ms echo spacing); give a TR of at least %s ms",
+                    Tables.num(trMs), Tables.num(slices * trainMs), slices, train.echoes(),
+                    Tables.num(train.echoSpacingMs()), Tables.num(slices * trainMs)));
+        }
+        if (goal.objective != null) {
+            Checks.inRange("--knots", knots, 2, 32, "fewer are used when the objective spans fewer echoes");
+        } else if (spec.commandLine().getParseResult().hasMatchedOption("--knots")) {
+            throw new InputException("--knots shapes the --objective schedule; --target prescribes every echo");
+        }
+    }
+
+    /**
+     * Pulse shapes, durations and TR for the RF exposure: an option given on the command line wins; else
+     * the protocol's {@code pulse} and {@code repetition_ms}; else the option defaults.
+     */
+    private RfExposure rf(Protocol p) {
+        CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
+        var acq = p.acquisition();
+        PulseShape refocus = !parsed.hasMatchedOption("--pulse") && acq.refocusingPulse().isPresent()
+                ? acq.refocusingPulse().get().envelope() : PulseShape.parse(pulse, "--pulse");
+        double refMs = !parsed.hasMatchedOption("--pulse-ms") && acq.refocusingPulse().isPresent()
+                ? acq.refocusingPulse().get().durationMs() : pulseMs;
+        PulseShape exc;
+        if (excitationPulse != null) {
+            exc = PulseShape.parse(excitationPulse, "--excitation-pulse");
+        } else if (acq.excitationPulse().isPresent()) {
+            exc = acq.excitationPulse().get().envelope();
+        } else {
+            exc = refocus;
+        }
+        double excMs = excitationPulseMs != null ? excitationPulseMs
+                : acq.excitationPulse().isPresent() ? acq.excitationPulse().get().durationMs() : refMs;
+        double tr = trMs != null ? trMs : acq.hasRepetition() ? acq.repetitionMs() : Double.NaN;
+        return new RfExposure(refocus, refMs, exc, excMs, tr, slices);
     }
 
     private SarReference reference(Protocol p, CpmgTrain train, RfExposure rf) {
@@ -245,13 +307,13 @@ public final class DesignCommand implements Callable<Integer> {
                     "--reference-protocol, --reference-tr-ms and --reference-slices need --reference-sar-w-per-kg");
             return null;
         }
-        Checks.require(trMs != null, "--reference-sar-w-per-kg needs --tr-ms");
+        Checks.require(rf.hasTr(), "--reference-sar-w-per-kg needs --tr-ms (or repetition_ms in the protocol)");
         CpmgTrain ref = train;
         if (referenceProtocol != null) {
             ref = ProtocolReader.read(referenceProtocol).cpmg().orElseThrow(() -> new InputException(referenceProtocol
                     + ": the reference protocol must be a CPMG echo train"));
         }
-        RfExposure refRf = rf.withTiming(referenceTrMs == null ? trMs : referenceTrMs,
+        RfExposure refRf = rf.withTiming(referenceTrMs == null ? rf.trMs() : referenceTrMs,
                 referenceSlices == null ? slices : referenceSlices);
         return new SarReference(referenceSar, refRf.powerUt2(ref.excitationFlipDeg(), ref.refocusFlipsDeg()));
     }

@@ -13,6 +13,7 @@ import org.echotrellis.design.IecLimits;
 import org.echotrellis.design.RfExposure;
 import org.echotrellis.design.ScheduleFile;
 import org.echotrellis.io.AtomicFiles;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.Json;
 import org.echotrellis.plot.BarChart;
 import org.echotrellis.plot.ChartFiles;
@@ -28,14 +29,19 @@ final class DesignOutputs {
 
     private DesignOutputs() { }
 
-    /** Refuses the output directory when any output exists (without force), before any work is written. */
-    static void checkWritable(Path dir, boolean force) {
-        if (Files.exists(dir) && !Files.isDirectory(dir)) {
-            throw new InputException("--out " + dir + " exists and is not a directory");
+    /**
+     * Opens the output set and refuses it when any output exists (without force), an output is an
+     * input, or the directory is not writable, before any work is done.
+     */
+    static OutputSet open(Path dir, boolean force, List<Path> inputs) {
+        OutputSet set = OutputSet.open(dir, force, inputs);
+        try {
+            set.plan(FILES);
+        } catch (RuntimeException e) {
+            set.close();
+            throw e;
         }
-        for (String f : FILES) {
-            AtomicFiles.checkWritable(dir.resolve(f), force);
-        }
+        return set;
     }
 
     /** Writes schedule.yaml, design.json and the three plots (PNG and SVG). */

@@ -2,7 +2,9 @@ package org.echotrellis.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -130,6 +132,10 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "t2-fit", description = "Output directory (default: ${DEFAULT-VALUE}).")
     Path out;
 
+    @Option(names = "--plot", paramLabel = "PATH",
+            description = "Decay tables: plot a sample of the decays with their fits and a summary (.png or .svg).")
+    Path plot;
+
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads for volumes (default: all cores).")
     Integer threads;
 
@@ -155,13 +161,14 @@ public final class FitCommand implements Callable<Integer> {
         String name = data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean volume = name.endsWith(".nii") || name.endsWith(".nii.gz");
         PrintWriter o = spec.commandLine().getOut();
+        refuseIgnored(volume);
         if (!volume) {
             if (mask != null || b1Map != null) {
                 throw new InputException("--mask and --b1-map apply to NIfTI volumes, not to the decay table " + data);
             }
             double sigma = tableSigma();
             T2Fit.Factory f = new T2Fit.Factory(options.settings(train).withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, out, force).run(data, format == Format.json, o);
+            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -178,9 +185,41 @@ public final class FitCommand implements Callable<Integer> {
         info.put("b1_map_units", b1MapUnits.name());
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
-        new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask))
+        new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask), protocol)
                 .run(data, mask, b1Map, b1MapUnits, n, info, format == Format.json, o, spec.commandLine().getErr());
         return 0;
+    }
+
+    /** Options the chosen input or model would ignore are refused rather than silently dropped. */
+    private void refuseIgnored(boolean volume) {
+        if (!volume && threads != null) {
+            throw new InputException("--threads " + threads + " applies to NIfTI volumes; the decay table " + data
+                    + " is fitted on one thread");
+        }
+        if (volume && plot != null) {
+            throw new InputException("--plot " + plot + " applies to decay tables; volumes write PNG previews into --out");
+        }
+        boolean monoFitted = model == FitModel.MONO || compareMono || !volume;
+        for (String option : new String[] {"--mono-offset", "--mono-skip-first"}) {
+            if (!monoFitted && spec.commandLine().getParseResult().hasMatchedOption(option)) {
+                throw new InputException(option + " changes the mono-exponential fit, which --model epg does not run "
+                        + "on volumes; add --compare-mono or use --model mono");
+            }
+        }
+    }
+
+    /** Plots of a decay table: --plot FILE, or NAME-fit.png/.svg in an --out given explicitly; else none. */
+    private List<Path> tablePlots() {
+        List<Path> files = new ArrayList<>();
+        if (plot != null) {
+            files.add(plot);
+        }
+        if (spec.commandLine().getParseResult().hasMatchedOption("--out")) {
+            String stem = data.getFileName().toString().replaceAll("\\.[^.]*$", "");
+            files.add(out.resolve(stem + "-fit.png"));
+            files.add(out.resolve(stem + "-fit.svg"));
+        }
+        return files;
     }
 
     /** Parses --noise-sigma for tables (no 'auto'). */

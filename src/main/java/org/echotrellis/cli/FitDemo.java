@@ -95,8 +95,8 @@ final class FitDemo implements DemoSection {
 
         VolumeResult res;
         double sigma;
-        try (NiftiInput in = Nifti.open(ctx.file("phantom-series.nii.gz"))) {
-            NiftiImage m = Nifti.read(ctx.file("phantom-mask.nii.gz"));
+        try (NiftiInput in = Nifti.open(ctx.written("phantom-series.nii.gz"))) {
+            NiftiImage m = Nifti.read(ctx.written("phantom-mask.nii.gz"));
             VolumeJob job = VolumeJob.of(in, Optional.of(m), Optional.empty());
             sigma = BackgroundNoise.sigma(job);
             T2Fit.Factory f = new T2Fit.Factory(FitSettings.defaults(train).withNoiseSigma(sigma), FitModel.EPG, true);

@@ -3,6 +3,7 @@ package org.echotrellis.cli;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
@@ -15,51 +16,74 @@ import org.echotrellis.fit.T2Estimate;
 import org.echotrellis.fit.T2Fit;
 import org.echotrellis.io.DecayTable;
 import org.echotrellis.io.DecayTableReader;
+import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Json;
+import org.echotrellis.io.RunSummary;
+import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.ChartFiles;
 import org.echotrellis.plot.LineChart;
 import org.echotrellis.sequence.Protocol;
 
-/** The decay-table branch of {@code fit}: one fit per column, a table or JSON, and a plot. */
+/**
+ * The decay-table branch of {@code fit}: one fit per column, a table or JSON, and a plot only when
+ * asked for, bounded in size: at most {@link #PLOT_DECAYS} decays drawn plus a summary line over all.
+ */
 final class FitTableRun {
+    /** Most decays drawn on a table's plot; a wider table shows an evenly spaced sample. */
+    static final int PLOT_DECAYS = 12;
+
     private final T2Fit.Factory factory;
     private final Protocol protocol;
-    private final Path outDir;
+    private final List<Path> plotFiles;
     private final boolean force;
+    private final List<Path> inputs;
 
-    FitTableRun(T2Fit.Factory factory, Protocol protocol, Path outDir, boolean force) {
+    /**
+     * @param plotFiles plots to write (none: no plot)
+     * @param inputs the run's inputs, never written over
+     */
+    FitTableRun(T2Fit.Factory factory, Protocol protocol, List<Path> plotFiles, boolean force, List<Path> inputs) {
         this.factory = factory;
         this.protocol = protocol;
-        this.outDir = outDir;
+        this.plotFiles = List.copyOf(plotFiles);
         this.force = force;
+        this.inputs = inputs;
     }
 
     void run(Path csv, boolean json, PrintWriter o) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
-        String stem = csv.getFileName().toString().replaceAll("\\.[^.]*$", "");
-        Path plotFile = outDir.resolve(stem + "-fit.png");
-        Path svgFile = outDir.resolve(stem + "-fit.svg");
-        org.echotrellis.io.AtomicFiles.checkWritable(plotFile, force);
-        org.echotrellis.io.AtomicFiles.checkWritable(svgFile, force);
+        for (Path f : plotFiles) {
+            ChartFiles.isSvg(f);
+            AtomicFiles.checkWritable(f, force, inputs);
+        }
         T2Fit fit = factory.newKernel();
         double[] times = table.echoTimesMs();
-        LineChart chart = LineChart.create(protocol.name() + ": decays and fits", "echo time (ms)", "signal")
-                .subtitle("markers: data; solid: EPG fit (stimulated echoes); dashed: mono-exponential");
+        LineChart chart = LineChart.create(protocol.name() + ": decays and fits", "echo time (ms)", "signal");
+        int step = Math.max(1, (table.count() + PLOT_DECAYS - 1) / PLOT_DECAYS);
         List<Map<String, Object>> rows = new ArrayList<>();
+        double[] t2 = new double[table.count()];
+        int fitted = 0;
         for (int c = 0; c < table.count(); c++) {
             T2Estimate e = fit.estimate(table.decay(c), Double.NaN);
-            double[][] curves = fit.curves(e);
             String name = table.names().get(c);
             rows.add(row(name, e));
-            chart.add(name + " data", times, table.decay(c), LineChart.Look.MARKERS, c);
-            if (factory.model() == FitModel.EPG && e.status().fitted()) {
-                chart.add(name + String.format(Locale.ROOT, " EPG T2 %.1f ms", e.t2Ms()), times, curves[0], LineChart.Look.LINE, c);
+            if (e.status().fitted() && Double.isFinite(e.t2Ms())) {
+                t2[fitted++] = e.t2Ms();
             }
-            if (Double.isFinite(curves[1][0])) {
-                chart.add(name + String.format(Locale.ROOT, " mono T2 %.1f ms", e.monoT2Ms()), times, curves[1],
-                        LineChart.Look.DASHED, c);
+            if (!plotFiles.isEmpty() && c % step == 0 && e.status() != VoxelStatus.INVALID_INPUT) {
+                double[][] curves = fit.curves(e);
+                int colour = c / step;
+                chart.add(name + " data", times, table.decay(c), LineChart.Look.MARKERS, colour);
+                if (factory.model() == FitModel.EPG && e.status().fitted()) {
+                    chart.add(name + String.format(Locale.ROOT, " EPG T2 %.1f ms", e.t2Ms()), times, curves[0],
+                            LineChart.Look.LINE, colour);
+                }
+                if (Double.isFinite(curves[1][0])) {
+                    chart.add(name + String.format(Locale.ROOT, " mono T2 %.1f ms", e.monoT2Ms()), times, curves[1],
+                            LineChart.Look.DASHED, colour);
+                }
             }
         }
         if (json) {
@@ -70,11 +94,22 @@ final class FitTableRun {
             o.print(table(rows));
         }
         o.flush();
-        ChartFiles.write(chart.build(), plotFile, 900, 560, force);
-        ChartFiles.write(chart.build(), svgFile, 900, 560, force);
+        if (!plotFiles.isEmpty()) {
+            double[] sorted = Arrays.copyOf(t2, fitted);
+            Arrays.sort(sorted);
+            chart.subtitle(String.format(Locale.ROOT, "%d of %d decays shown%s; %d fitted, median T2 %s ms "
+                    + "(quartiles %s to %s); markers: data, solid: EPG fit, dashed: mono-exponential",
+                    (table.count() + step - 1) / step, table.count(), step > 1 ? " (every " + step + "th)" : "", fitted,
+                    Tables.num(RunSummary.percentile(sorted, 50)), Tables.num(RunSummary.percentile(sorted, 25)),
+                    Tables.num(RunSummary.percentile(sorted, 75))));
+            for (Path f : plotFiles) {
+                ChartFiles.write(chart.build(), f, 900, 560, force);
+            }
+        }
     }
 
     private static void checkTimes(DecayTable t, CpmgTrain train) {
+        Tables.requireHeaderRow(t);
         if (t.echoes() != train.echoes()) {
             throw new InputException(t.source() + ": " + t.echoes() + " echoes, but the protocol has " + train.echoes());
         }

@@ -11,14 +11,15 @@ import java.util.Optional;
 import org.echotrellis.InputException;
 import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.fit.volume.VolumeMaps;
-import org.echotrellis.io.AtomicFiles;
 import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumeResult;
+import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.MapPreview;
 import org.echotrellis.plot.PlotSettings;
 
@@ -29,8 +30,11 @@ final class FitVolumeRun {
     private final boolean force;
     private final boolean quiet;
     private final float outsideMask;
+    private final Path protocolFile;
 
-    FitVolumeRun(VolumeAnalysis analysis, Path outDir, boolean force, boolean quiet, float outsideMask) {
+    FitVolumeRun(VolumeAnalysis analysis, Path outDir, boolean force, boolean quiet, float outsideMask,
+            Path protocolFile) {
+        this.protocolFile = protocolFile;
         this.analysis = analysis;
         this.outDir = outDir;
         this.force = force;
@@ -47,25 +51,28 @@ final class FitVolumeRun {
 
     VolumeMaps run(Path data, Path maskFile, Path b1File, FitCommand.B1Units b1Units, int threads,
             Map<String, Object> info, boolean json, PrintWriter o, PrintWriter err) {
-        Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
-        Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read)
-                .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);
-        try (NiftiInput in = Nifti.open(data)) {
+        // every header is checked (series against protocol, mask and B1 map against the series)
+        // before any file is inflated or any voxel array allocated
+        NiftiHeader grid = Nifti.readHeader(data);
+        VolumeJob.checkSeries(grid, data.toString(), analysis.train().echoes());
+        Nifti.checkOnGrid(maskFile, grid, "--mask");
+        Nifti.checkOnGrid(b1File, grid, "--b1-map");
+        try (OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile));
+                NiftiInput in = Nifti.open(data)) {
             NiftiHeader h = in.header();
-            int echoes = h.volumes();
-            if (echoes != analysis.train().echoes()) {
-                throw new InputException(data + ": " + echoes + " echoes (dim 4), but the protocol has " + analysis.train().echoes());
-            }
+            Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
+            Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read)
+                    .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);
             VolumeJob job = CliChecks.volumeJob(in, mask, b1, threads);
-            for (Path f : plannedFiles(analysis.mapNames())) {
-                AtomicFiles.checkWritable(f, force);
-            }
+            set.plan(plannedFiles(analysis.mapNames()));
             VolumeMaps maps = analysis.run(job, StderrProgressBar.onTerminal(err, quiet));
             info.put("noise_sigma", Double.isNaN(maps.noiseSigma()) ? null : maps.noiseSigma());
             VolumeResult res = maps.result();
+            refuseNothingFitted(res, job, b1File);
             maps.write(outDir, outsideMask, force);
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
+            set.commit();
             double[] t2 = res.fittedValues("t2_ms");
             if (json) {
                 o.println(org.echotrellis.io.Json.write(RunSummary.build(res, info)).strip());
@@ -78,17 +85,49 @@ final class FitVolumeRun {
         }
     }
 
-    private List<Path> plannedFiles(List<String> outputs) {
-        List<Path> f = new ArrayList<>();
-        for (String n : outputs) {
-            f.add(outDir.resolve(n + ".nii.gz"));
+    /** A run in which no voxel inside the mask could be fitted is an input error, with a hint where one is clear. */
+    private static void refuseNothingFitted(VolumeResult res, VolumeJob job, Path b1File) {
+        long fitted = res.statusCounts().entrySet().stream().filter(e -> e.getKey().fitted())
+                .mapToLong(Map.Entry::getValue).sum();
+        if (res.processed() == 0 || fitted > 0) {
+            return;
         }
-        f.add(outDir.resolve("status.nii.gz"));
-        f.add(outDir.resolve("summary.json"));
+        String hint = "";
+        if (job.b1Map().isPresent()) {
+            double[] inside = new double[job.voxels()];
+            int n = 0;
+            for (int v = 0; v < job.voxels(); v++) {
+                double b = job.b1Map().get().get(v);
+                if (job.inside(v) && Double.isFinite(b)) {
+                    inside[n++] = b;
+                }
+            }
+            double[] sorted = java.util.Arrays.copyOf(inside, n);
+            java.util.Arrays.sort(sorted);
+            double median = RunSummary.percentile(sorted, 50);
+            if (median > 10) {
+                hint = String.format(Locale.ROOT, "; --b1-map %s: median %.4g, values look like percent; this option "
+                        + "takes scale factors (1 = nominal flip) unless --b1-map-units percent is given", b1File, median);
+            }
+        }
+        throw new InputException("no voxel could be fitted (" + res.processed() + " inside the mask: "
+                + res.statusCounts().entrySet().stream()
+                        .filter(e -> e.getValue() > 0 && e.getKey() != VoxelStatus.OUTSIDE_MASK)
+                        .map(e -> e.getValue() + " " + e.getKey().label()).collect(java.util.stream.Collectors.joining(", "))
+                + ")" + hint);
+    }
+
+    private static List<String> plannedFiles(List<String> outputs) {
+        List<String> f = new ArrayList<>();
+        for (String n : outputs) {
+            f.add(n + ".nii.gz");
+        }
+        f.add("status.nii.gz");
+        f.add("summary.json");
         for (String[] p : PREVIEWS) {
             if (outputs.contains(p[0]) || p[0].equals("status")) {
                 for (String ext : FORMATS) {
-                    f.add(outDir.resolve(p[0] + ext));
+                    f.add(p[0] + ext);
                 }
             }
         }

@@ -131,8 +131,10 @@ public final class ImageCommand implements Callable<Integer> {
             throw new InputException((labels.isEmpty() ? "--phantom-slice" : "--label")
                     + " applies to a --phantom FILE label image, not to the built-in phantom");
         }
-        if (!figures && spec.commandLine().getParseResult().hasMatchedOption("--phantom")) {
-            throw new InputException("--phantom draws the phantom image; give --plot PATH or --out DIR too");
+        for (String option : List.of("--phantom", "--seed")) {
+            if (!figures && spec.commandLine().getParseResult().hasMatchedOption(option)) {
+                throw new InputException(option + " is for the phantom image; give --plot PATH or --out DIR too");
+            }
         }
         List<Path> targets = targets();
         Protocol p = input.load();

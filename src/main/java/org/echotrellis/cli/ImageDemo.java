@@ -79,7 +79,7 @@ final class ImageDemo implements DemoSection {
         }
         both(ctx, psfChart(reports, names), "image-psf", new int[] {900, 560});
         both(ctx, weightsChart(reports, names), "image-weights", new int[] {900, 560});
-        JFreeChart ph = ImageOutputs.phantomChart("White matter with CSF discs (top) and grey-matter discs, TE 96 ms",
+        JFreeChart ph = ImageOutputs.phantomChart("White matter with CSF discs (lower row) and grey-matter discs (upper row), TE 96 ms",
                 String.format(Locale.ROOT, "%d x %d, phase encoding vertical, noise sd %.2f (seed %d); ideal: all-180° "
                         + "centre weights", LINES, LINES, NOISE_SD, SEED), images.get(0), names, images);
         both(ctx, ph, "image-phantom", ImageOutputs.phantomSize(images.get(0), 4));

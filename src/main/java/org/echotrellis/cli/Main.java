@@ -1,8 +1,13 @@
 package org.echotrellis.cli;
 
+import java.io.FileDescriptor;
+import java.io.FileOutputStream;
+import java.io.OutputStream;
 import java.io.PrintWriter;
 import java.util.Arrays;
 import org.echotrellis.InputException;
+import org.echotrellis.io.CheckedWriter;
+import org.echotrellis.io.WriteFailure;
 import org.echotrellis.plot.PlotSettings;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -10,7 +15,8 @@ import picocli.CommandLine.Command;
 /** Entry point of the {@code echotrellis} command-line tool. */
 @Command(name = "echotrellis", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = "Extended-phase-graph tools for multi-echo spin-echo MR: simulate echo trains, "
-                + "trace coherence pathways, fit T2 and B1, compute T2 spectra and design refocusing schedules.",
+                + "trace coherence pathways, fit T2 and B1, compute T2 spectra, design refocusing schedules "
+                + "and follow fast-spin-echo trains into the image.",
         subcommands = {SimulateCommand.class, PathwaysCommand.class, FitCommand.class, SpectrumCommand.class,
             DesignCommand.class, ImageCommand.class, CohortCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Example:", "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
@@ -42,12 +48,59 @@ public final class Main implements java.util.concurrent.Callable<Integer> {
         return cl;
     }
 
+    /**
+     * Exit codes: 0 success, 1 internal error, 2 bad input or usage, 3 an output could not be
+     * written (standard output or error, a full disk, permission denied, a directory locked by
+     * another run).
+     */
+    static final int EXIT_WRITE_FAILURE = 3;
+
+    /**
+     * Runs the command line on standard output and error wrapped so that any failed write ends the
+     * run with exit code {@value #EXIT_WRITE_FAILURE} (see {@link CheckedWriter}).
+     *
+     * @param cl the command line
+     * @param out standard output
+     * @param err standard error
+     * @param args arguments
+     * @return the exit code
+     */
+    static int run(CommandLine cl, OutputStream out, OutputStream err, String[] args) {
+        PrintWriter o = CheckedWriter.printWriter(out, "standard output", false);
+        PrintWriter e = CheckedWriter.printWriter(err, "standard error", true);
+        cl.setOut(o);
+        cl.setErr(e);
+        // a failed write while printing help or version reaches the execution-error handler too
+        CommandLine.IExecutionStrategy strategy = cl.getExecutionStrategy();
+        cl.setExecutionStrategy(parsed -> {
+            try {
+                return strategy.execute(parsed);
+            } catch (WriteFailure f) {
+                throw new CommandLine.ExecutionException(cl, f.getMessage(), f);
+            }
+        });
+        try {
+            int code = cl.execute(args);
+            o.flush();
+            return code;
+        } catch (WriteFailure f) {
+            try {
+                e.println("echotrellis: " + oneLine(f.getMessage()));
+                e.flush();
+            } catch (WriteFailure ignored) {
+                // standard error is gone too: the exit code is all that is left
+            }
+            return EXIT_WRITE_FAILURE;
+        }
+    }
+
     /** @param args command-line arguments */
     public static void main(String[] args) {
         System.setProperty("java.awt.headless", "true");
         int code;
         try {
-            code = newCommandLine().execute(args);
+            code = run(newCommandLine(), new FileOutputStream(FileDescriptor.out), new FileOutputStream(FileDescriptor.err),
+                    args);
         } catch (OutOfMemoryError e) {
             System.err.println("echotrellis: out of memory (" + Runtime.getRuntime().maxMemory() / (1 << 20)
                     + " MB heap); run java with a larger -Xmx, or process less at once");
@@ -116,8 +169,15 @@ public final class Main implements java.util.concurrent.Callable<Integer> {
         while (input != null && !(input instanceof InputException)) {
             input = input.getCause();
         }
+        Throwable write = e;
+        while (write != null && !(write instanceof WriteFailure)) {
+            write = write.getCause();
+        }
         int code;
-        if (input != null) {
+        if (write != null) {
+            err.println("echotrellis: " + oneLine(write.getMessage()));
+            code = EXIT_WRITE_FAILURE;
+        } else if (input != null) {
             err.println("echotrellis: " + oneLine(input.getMessage()));
             code = 2;
         } else {
@@ -133,8 +193,9 @@ public final class Main implements java.util.concurrent.Callable<Integer> {
         return code;
     }
 
+    /** First line of a message, with control characters (an ESC from a file name or protocol) as '?'. */
     private static String oneLine(String s) {
-        return s == null ? "" : s.split("\\R")[0];
+        return s == null ? "" : s.split("\\R")[0].replaceAll("[\\p{Cc}\\p{Cf}]", "?");
     }
 
     /** Version from the jar manifest, or "development". */

@@ -155,6 +155,13 @@ public final class PathwaysCommand implements Callable<Integer> {
         }
         Checks.inRange("--min-amplitude", minAmplitude, 0, 1, null);
         Checks.inRange("--diagram-threshold", diagramThreshold, 0, 1, null);
+        if (diagram == null) {
+            for (String option : new String[] {"--diagram-threshold", "--diagram-max-order", "--diagram-until-ms"}) {
+                if (spec.commandLine().getParseResult().hasMatchedOption(option)) {
+                    throw new InputException(option + " shapes the phase-graph diagram; give --diagram PATH.png or PATH.svg too");
+                }
+            }
+        }
         if (diagramMaxOrder != null) {
             Checks.inRange("--diagram-max-order", diagramMaxOrder, 0, 100_000, null);
         }
@@ -168,7 +175,7 @@ public final class PathwaysCommand implements Callable<Integer> {
         for (Path f : new Path[] {plot, diagram}) {
             if (f != null) {                      // refuse before any work or output, not after the table
                 ChartFiles.isSvg(f);
-                AtomicFiles.checkWritable(f, force);
+                AtomicFiles.checkWritable(f, force, java.util.List.of(input.file));
             }
         }
     }

@@ -12,6 +12,9 @@ import picocli.CommandLine.Parameters;
  * {@code pathways}.
  */
 public final class ProtocolInput {
+    @picocli.CommandLine.Spec(picocli.CommandLine.Spec.Target.MIXEE)
+    picocli.CommandLine.Model.CommandSpec mixee;
+
     @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
     Path file;
 
@@ -32,6 +35,11 @@ public final class ProtocolInput {
     /** @return the protocol read from FILE with the overrides applied */
     public Protocol load() {
         Protocol p = ProtocolReader.read(file);
+        if (ProtocolReader.tissueAssumed(p) && (t1Ms == null || t2Ms == null) && mixee != null) {
+            mixee.commandLine().getErr().println("note: " + file + " has no tissue section; assuming T1 "
+                    + Tables.num(p.tissue().t1Ms()) + " ms, T2 " + Tables.num(p.tissue().t2Ms())
+                    + " ms (add tissue: to the protocol, or give --t1-ms and --t2-ms)");
+        }
         Tissue t = p.tissue();
         if (t1Ms != null) {
             t = t.withT1Ms(CliChecks.positiveOrInf("--t1-ms", t1Ms));

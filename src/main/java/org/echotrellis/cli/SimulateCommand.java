@@ -139,13 +139,16 @@ public final class SimulateCommand implements Callable<Integer> {
      */
     private void refuseIgnoredOptions() {
         if (sweeps.isEmpty()) {
+            if (threads != null) {
+                throw new InputException("--threads " + threads + " applies to --sweep grids; a single train runs on one thread");
+            }
             if (out != null) {
                 throw new InputException("--out " + out + ": --out writes the --sweep CSV; a single train goes to "
                         + "stdout (redirect it) and its plot to --plot");
             }
             if (plot != null) {
                 ChartFiles.isSvg(plot);
-                AtomicFiles.checkWritable(plot, force);
+                AtomicFiles.checkWritable(plot, force, List.of(input.file));
             } else if (!plotB1.isEmpty() || !plotTissues.isEmpty()) {
                 throw new InputException((plotB1.isEmpty() ? "--plot-tissue" : "--plot-b1")
                         + " adds curves to the --plot chart; give --plot PATH.png or PATH.svg too");
@@ -157,6 +160,9 @@ public final class SimulateCommand implements Callable<Integer> {
                 TissueOption.parse(spec, "--plot-tissue");
             }
             return;
+        }
+        if (out != null) {
+            AtomicFiles.checkWritable(out, force, List.of(input.file));
         }
         CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
         for (String option : List.of("--format", "--plot", "--plot-b1", "--plot-tissue")) {
@@ -174,7 +180,7 @@ public final class SimulateCommand implements Callable<Integer> {
 
     private Map<String, Object> json(Protocol p, EchoTrain train) {
         Map<String, Object> root = Tables.protocolJson(p);
-        root.put("engine", p.cpmg().isPresent() ? "cpmg" : "general");
+        root.put("engine", Tables.engine(p));
         List<Map<String, Object>> echoes = new ArrayList<>();
         double[] times = train.timesMs();
         double[] re = train.re();

@@ -131,6 +131,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         boolean image = name.endsWith(".nii") || name.endsWith(".nii.gz");
         Checks.require(image || name.endsWith(".csv"),
                 "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
+        refuseIgnored(image, options);
         VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
         BasisCache cache = analysis.basisCache().orElseThrow();
         Map<String, Object> settings = settings(p, analysis);
@@ -140,12 +141,26 @@ public final class SpectrumCommand implements Callable<Integer> {
             Checks.inRange("--threads", n, 1, 1024, null);
             SpectrumVolumes.run(data, mask, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
                     StderrProgressBar.onTerminal(spec.commandLine().getErr(), quiet), format == Format.json,
-                    spec.commandLine().getOut());
+                    spec.commandLine().getOut(), java.util.Arrays.asList(data, mask, protocol));
         } else {
             Checks.require(mask == null, "--mask applies to image input only; DATA " + data + " is a table");
-            SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings, spec.commandLine().getOut());
+            SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings, spec.commandLine().getOut(),
+                    List.of(data, protocol));
         }
         return 0;
+    }
+
+    /** Options the chosen input or method would ignore are refused rather than silently dropped. */
+    private void refuseIgnored(boolean image, SpectrumOptions options) {
+        picocli.CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
+        if (!image && threads != null) {
+            throw new InputException("--threads " + threads + " applies to image input; the decay table " + data
+                    + " is fitted on one thread");
+        }
+        if (parsed.hasMatchedOption("--misfit-increase") && options.regularisation() == Regularisation.NONE) {
+            throw new InputException("--misfit-increase sets the misfit target of regularisation; it has no effect with "
+                    + "--regularisation none");
+        }
     }
 
     /** @return the fit options from the command line (validated; errors name the option) */

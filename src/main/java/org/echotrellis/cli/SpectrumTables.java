@@ -18,6 +18,7 @@ import org.echotrellis.fit.spectrum.SpectrumOptions;
 import org.echotrellis.fit.volume.SpectrumNames;
 import org.echotrellis.fit.spectrum.SpectrumStatus;
 import org.echotrellis.io.AtomicFiles;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.DecayTable;
 import org.echotrellis.io.DecayTableReader;
 import org.echotrellis.io.Json;
@@ -30,29 +31,29 @@ final class SpectrumTables {
     private SpectrumTables() { }
 
     static void run(Path data, Protocol p, BasisCache cache, SpectrumOptions o, String format, Path out,
-                    boolean force, Map<String, Object> settings, PrintWriter stdout) throws Exception {
+                    boolean force, Map<String, Object> settings, PrintWriter stdout, List<Path> inputs) throws Exception {
         DecayTable t = DecayTableReader.read(data);
         checkEchoes(t, p);
-        List<SpectrumFit> fits = fit(t, cache, o);
-        if (out != null) {
-            if (Files.exists(out) && !Files.isDirectory(out)) {
-                throw new InputException("--out " + out + " exists and is not a directory");
+        try (OutputSet set = out == null ? null : OutputSet.open(out, force, inputs)) {
+            if (set != null) {
+                set.plan(List.of("spectra.csv", "spectra.json", "spectrum.png", "spectrum.svg"));
             }
-            if (!force) {
-                for (String f : new String[] {"spectra.csv", "spectra.json", "spectrum.png", "spectrum.svg"}) {
-                    if (Files.exists(out.resolve(f))) {
-                        throw new InputException(out.resolve(f) + " exists; use --force to overwrite");
-                    }
+            List<SpectrumFit> fits = fit(t, cache, o);
+            if (set != null) {
+                AtomicFiles.writeString(out.resolve("spectra.csv"), csv(fits, o), force);
+                AtomicFiles.writeString(out.resolve("spectra.json"), json(fits, settings), force);
+                for (String ext : new String[] {"png", "svg"}) {
+                    ChartFiles.write(plot(fits, o, data.getFileName().toString()), out.resolve("spectrum." + ext),
+                            900, 560, force);
                 }
+                set.commit();
             }
-            Files.createDirectories(out);
-            AtomicFiles.writeString(out.resolve("spectra.csv"), csv(fits, o), force);
-            AtomicFiles.writeString(out.resolve("spectra.json"), json(fits, settings), force);
-            for (String ext : new String[] {"png", "svg"}) {
-                ChartFiles.write(plot(fits, o, data.getFileName().toString()), out.resolve("spectrum." + ext),
-                        900, 560, force);
-            }
+            print(fits, o, format, stdout);
         }
+    }
+
+    private static void print(List<SpectrumFit> fits, SpectrumOptions o, String format, PrintWriter stdout)
+            throws Exception {
         switch (format) {
             case "json": stdout.print(json(fits, null)); break;
             case "csv": stdout.print(csv(fits, o)); break;
@@ -63,6 +64,7 @@ final class SpectrumTables {
 
     /** Refuses a table whose echo count or echo times differ from the protocol. */
     static void checkEchoes(DecayTable t, Protocol p) {
+        Tables.requireHeaderRow(t);
         double[] want = p.echoTimesMs();
         double[] got = t.echoTimesMs();
         if (got.length != want.length) {

@@ -18,6 +18,7 @@ import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.ProgressReporter;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
@@ -39,22 +40,21 @@ final class SpectrumVolumes {
 
     static VolumeMaps run(Path data, Path mask, VolumeAnalysis analysis, int threads, Path out, boolean force,
                           float outsideMask, Map<String, Object> settings, ProgressReporter progress,
-                          boolean json, PrintWriter stdout) throws Exception {
+                          boolean json, PrintWriter stdout, List<Path> inputs) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
         SpectrumOptions o = analysis.spectrumOptions().orElseThrow();
-        try (NiftiInput in = Nifti.open(data)) {
+        NiftiHeader grid = Nifti.readHeader(data);  // headers first: nothing inflated before they agree
+        VolumeJob.checkSeries(grid, data.toString(), analysis.train().echoes());
+        Nifti.checkOnGrid(mask, grid, "--mask");
+        try (OutputSet set = OutputSet.open(out, force, inputs); NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
             VolumeJob job = CliChecks.volumeJob(in, m, Optional.empty(), threads);
-            if (job.echoes() != analysis.train().echoes()) {
-                throw new InputException(data + ": " + job.echoes() + " echoes (volumes), but the protocol has "
-                        + analysis.train().echoes());
-            }
-            refuseExisting(out, o, force);
-            Files.createDirectories(out);
+            set.plan(plannedFiles(analysis, o));
             VolumeMaps r = analysis.run(job, progress);
             Map<String, Object> s = write(r, o, out, force, outsideMask, settings);
+            set.commit();
             VolumeResult res = r.result();
             if (json) {
                 stdout.println(org.echotrellis.io.Json.write(RunSummary.build(res, s)).strip());
@@ -119,23 +119,17 @@ final class SpectrumVolumes {
         return end;
     }
 
-    /** Fails before any work if an output exists and --force is not given (same message as the writer). */
-    static void refuseExisting(Path out, SpectrumOptions o, boolean force) {
-        if (force) {
-            return;
-        }
-        List<String> names = new ArrayList<>(List.of("spectrum.nii.gz", "status.nii.gz", "summary.json"));
+    /** The files a run writes, checked before any work. */
+    static List<String> plannedFiles(VolumeAnalysis analysis, SpectrumOptions o) {
+        List<String> names = new ArrayList<>(VolumeMaps.fileNames(analysis));
+        names.add("summary.json");
         for (String n : SpectrumNames.scalars(o)) {
-            names.add(n + ".nii.gz");
-            names.add(n + ".png");
-            names.add(n + ".svg");
-        }
-        for (String n : names) {
-            Path f = out.resolve(n);
-            if (Files.exists(f)) {
-                throw new InputException(f + " exists; use --force to overwrite");
+            if (!n.equals("chi2_unregularised")) {
+                names.add(n + ".png");
+                names.add(n + ".svg");
             }
         }
+        return names;
     }
 
     private static List<String> outputs(List<String> scalars) {

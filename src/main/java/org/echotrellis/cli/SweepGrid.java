@@ -7,14 +7,29 @@ import org.echotrellis.InputException;
 
 /**
  * The grid of a {@code --sweep NAME=START:STOP:COUNT} set: the Cartesian product of evenly spaced
- * values (inclusive) per named parameter; parameters not swept keep their protocol value.
+ * values (inclusive) per named parameter; parameters not swept keep their protocol value. Only the
+ * axes are held (at most 3 × 100 000 values); points are produced chunk by chunk with
+ * {@link #fill}, T1 varying slowest and B1 fastest.
  */
-record SweepGrid(double[] t1Ms, double[] t2Ms, double[] b1) {
+record SweepGrid(double[] t1Axis, double[] t2Axis, double[] b1Axis) {
     static final int MAX_POINTS = 5_000_000;
     private static final List<String> NAMES = List.of("t1_ms", "t2_ms", "b1");
 
     int size() {
-        return t2Ms.length;
+        return t1Axis.length * t2Axis.length * b1Axis.length;
+    }
+
+    /**
+     * Writes the parameters of points {@code from .. to-1} into the arrays (index 0 = point from).
+     */
+    void fill(int from, int to, double[] t1, double[] t2, double[] b1) {
+        int nb = b1Axis.length;
+        int n2 = t2Axis.length;
+        for (int i = from; i < to; i++) {
+            t1[i - from] = t1Axis[i / (n2 * nb)];
+            t2[i - from] = t2Axis[(i / nb) % n2];
+            b1[i - from] = b1Axis[i % nb];
+        }
     }
 
     static SweepGrid parse(List<String> specs, double t1, double t2, double b1) {
@@ -65,21 +80,6 @@ record SweepGrid(double[] t1Ms, double[] t2Ms, double[] b1) {
         if (total > MAX_POINTS) {
             throw new InputException("--sweep grid has " + total + " points; at most " + MAX_POINTS);
         }
-        int m = (int) total;
-        double[] o1 = new double[m];
-        double[] o2 = new double[m];
-        double[] ob = new double[m];
-        int i = 0;
-        for (double x1 : v1) {
-            for (double x2 : v2) {
-                for (double xb : vb) {
-                    o1[i] = x1;
-                    o2[i] = x2;
-                    ob[i] = xb;
-                    i++;
-                }
-            }
-        }
-        return new SweepGrid(o1, o2, ob);
+        return new SweepGrid(v1, v2, vb);
     }
 }

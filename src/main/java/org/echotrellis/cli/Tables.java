@@ -33,15 +33,26 @@ final class Tables {
         java.util.Map<String, Object> tissue = new java.util.LinkedHashMap<>();
         tissue.put("t1_ms", p.tissue().t1Ms());
         tissue.put("t2_ms", p.tissue().t2Ms());
+        if (p.acquisition() != org.echotrellis.sequence.Acquisition.none() || p.tissue().diffusivityMm2PerS() > 0) {
+            tissue.put("diffusivity_mm2_per_s", p.tissue().diffusivityMm2PerS());
+        }
         root.put("tissue", tissue);
         root.put("b1", p.b1Scale());
+        if (p.acquisition() != org.echotrellis.sequence.Acquisition.none()) {
+            root.put("acquisition", p.acquisition().settings());
+        }
         return root;
+    }
+
+    /** @return the engine that produced the echoes: acquisition (whole-acquisition model), cpmg or general */
+    static String engine(Protocol p) {
+        return !p.isIdealAcquisition() ? "acquisition" : p.cpmg().isPresent() ? "cpmg" : "general";
     }
 
     static String echoTable(Protocol p, EchoTrain t) {
         StringBuilder sb = new StringBuilder();
         sb.append(String.format(Locale.ROOT, "# %s  (T1 %s ms, T2 %s ms, B1 %.3f, engine %s)%n", p.name(),
-                num(p.tissue().t1Ms()), num(p.tissue().t2Ms()), p.b1Scale(), p.cpmg().isPresent() ? "cpmg" : "general"));
+                num(p.tissue().t1Ms()), num(p.tissue().t2Ms()), p.b1Scale(), engine(p)));
         int lw = 5;
         for (String l : t.labels()) {
             lw = Math.max(lw, l.length());
@@ -74,5 +85,23 @@ final class Tables {
 
     private static String csv(String s) {
         return org.echotrellis.io.Csv.field(s);
+    }
+
+    /**
+     * Refuses a decay table whose first row held numbers: it was read as the header row, so the
+     * table looks one echo short (common mistake: a table saved without column names).
+     *
+     * @param t the table
+     */
+    static void requireHeaderRow(org.echotrellis.io.DecayTable t) {
+        for (String name : t.names()) {
+            try {
+                Double.parseDouble(name.strip());
+            } catch (NumberFormatException e) {
+                return;
+            }
+        }
+        throw new org.echotrellis.InputException(t.source() + ": the first row holds numbers, not column names; "
+                + "add a header row (echo-time column name, then one name per decay, e.g. te_ms,voxel1,voxel2)");
     }
 }

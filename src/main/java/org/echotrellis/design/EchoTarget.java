@@ -9,6 +9,7 @@ import java.util.List;
 
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * A prescribed echo-amplitude evolution (M0 = 1) for the echo-by-echo inversion. Parsed from the
@@ -165,10 +166,11 @@ public sealed interface EchoTarget {
 
     private static Listed readList(Path file) {
         List<String> lines;
+        InputFiles.requireRegular(file, "--target list:" + file);
         try {
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);
         } catch (IOException e) {
-            throw new InputException("--target list: cannot read " + file + " (" + e.getMessage() + ")", e);
+            throw InputFiles.readFailure("--target list:" + file, e);
         }
         List<Double> values = new ArrayList<>();
         for (int i = 0; i < lines.size(); i++) {

@@ -49,10 +49,9 @@ final class ImageObjectives {
     }
 
     private void kernel(int lines, int n, int centreEcho) {
-        KSpaceOrdering o = KSpaceOrdering.linear(lines, n, centreEcho);
-        if (!o.equals(ordering)) {
-            ordering = o;
-            kernel = new PsfKernel(o);
+        if (ordering == null || ordering.lines() != lines || ordering.echoes() != n || ordering.centerEcho() != centreEcho) {
+            ordering = KSpaceOrdering.linear(lines, n, centreEcho);
+            kernel = new PsfKernel(ordering);
         }
     }
 

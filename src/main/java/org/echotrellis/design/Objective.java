@@ -118,7 +118,9 @@ public sealed interface Objective {
         /** Validates. */
         public PsfWidth {
             Checks.inRange("--objective psf ECHO", echo, 1, echoes, null);
-            org.echotrellis.image.KSpaceOrdering.linear(lines, echoes, echo);
+            Checks.inRange("--objective psf LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
+            Checks.require(lines % echoes == 0, "--objective psf LINES " + lines + " must be a multiple of the "
+                    + echoes + " echoes of the train");
             Checks.positiveOrInfinite("t1_ms of " + name, t1, "--objective");
             Checks.positiveOrInfinite("t2_ms of " + name, t2, "--objective");
             Checks.inRange("--objective psf MIN_SIGNAL", minSignal, 0, 1, null);
@@ -152,7 +154,9 @@ public sealed interface Objective {
         /** Validates. */
         public ContrastAtWidth {
             Checks.inRange("--objective cnr ECHO", echo, 1, echoes, null);
-            org.echotrellis.image.KSpaceOrdering.linear(lines, echoes, echo);
+            Checks.inRange("--objective cnr LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
+            Checks.require(lines % echoes == 0, "--objective cnr LINES " + lines + " must be a multiple of the "
+                    + echoes + " echoes of the train");
             Checks.inRange("--objective cnr MAX_FWHM_PX", maxFwhmPx, 1, lines, null);
             Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "--objective");
             Checks.positiveOrInfinite("t2_ms of " + nameA, t2A, "--objective");

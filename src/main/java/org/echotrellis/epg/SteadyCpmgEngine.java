@@ -145,11 +145,11 @@ public final class SteadyCpmgEngine {
                 z[l] = init[l];
             }
         }
+        final int off = kmax;
         double lastFlip = Double.NaN;
         for (int p = 1; p <= n; p++) {
             int bound = odd ? Math.min(2 * p - 1, 2 * (n - p) + 1) : Math.min(2 * p - 2, 2 * (n - p));
-            half(base, -bound - 1, bound, dPre, dZ, kmax, odd);
-            base--;
+            base--; // the half before the pulse moves every F up one order; its relaxation is folded below
             double flip = Math.toRadians(train.refocusFlipDeg(p - 1)) * train.refocusSign(p - 1);
             if (flip != lastFlip) {
                 for (int l = 0; l < nl; l++) {
@@ -163,11 +163,10 @@ public final class SteadyCpmgEngine {
                 lastFlip = flip;
             }
             if (odd) {
-                mixOdd(base, bound);
+                mixOdd(base, bound, dPre, dPost, dZ, off);
             } else {
-                mixEven(base, bound);
+                mixEven(base, bound, dPre, dPost, dZ, off);
             }
-            half(base, -bound, bound, dPost, dZ, kmax, odd);
             base--;
             if (odd) {
                 int ib = base * nl;
@@ -181,66 +180,65 @@ public final class SteadyCpmgEngine {
         }
     }
 
-    /** Relaxation and diffusion over a half echo spacing; only the family's parity is touched. */
-    private void half(int base, int lo, int hi, double[] d, double[] dZ, int kmax, boolean odd) {
-        final int nl = lanes;
-        final int off = kmax;
-        for (int k = lo; k <= hi; k += 2) {
-            double g = d[k + off];
-            int o = (base + k) * nl;
-            for (int l = 0; l < nl; l++) {
-                f[o + l] *= e2h[l] * g;
-            }
-        }
-        for (int k = odd ? 1 : 2; k <= hi; k += 2) {
-            double g = dZ[k];
-            int o = k * nl;
-            for (int l = 0; l < nl; l++) {
-                z[o + l] *= e1h[l] * g;
-            }
-        }
-        for (int l = 0; l < nl; l++) {
-            z[l] = e1h[l] * z[l] + rec[l];
-        }
-    }
-
-    private void mixOdd(int base, int bound) {
+    /*
+     * Relaxation folded into the mixing: a state at signed order j at the pulse came from j - 1 at the
+     * start of the half before it (factor e2h * dPre[j - 1]); after the pulse it relaxes over the half
+     * after it starting at j (e2h * dPost[j]); Z_k relaxes by e1h * dZ[k] on both sides. Every state that
+     * can still reach an echo (or Z0 at the end) is inside the window, so nothing else needs updating.
+     */
+    private void mixOdd(int base, int bound, double[] dPre, double[] dPost, double[] dZ, int off) {
         final int nl = lanes;
         for (int k = 1; k <= bound; k += 2) {
             int ip = (base + k) * nl;
             int im = (base - k) * nl;
             int iz = k * nl;
+            double gpIn = dPre[k - 1 + off];
+            double gmIn = dPre[-k - 1 + off];
+            double gpOut = dPost[k + off];
+            double gmOut = dPost[-k + off];
+            double gz = dZ[k];
             for (int l = 0; l < nl; l++) {
-                double x = f[ip + l];
-                double y = f[im + l];
-                double q = z[iz + l];
-                f[ip + l] = c2[l] * x + s2[l] * y + sn[l] * q;
-                f[im + l] = s2[l] * x + c2[l] * y - sn[l] * q;
-                z[iz + l] = cs[l] * q - 0.5 * sn[l] * (x - y);
+                double e2 = e2h[l];
+                double e1 = e1h[l] * gz;
+                double x = f[ip + l] * (e2 * gpIn);
+                double y = f[im + l] * (e2 * gmIn);
+                double q = z[iz + l] * e1;
+                f[ip + l] = (c2[l] * x + s2[l] * y + sn[l] * q) * (e2 * gpOut);
+                f[im + l] = (s2[l] * x + c2[l] * y - sn[l] * q) * (e2 * gmOut);
+                z[iz + l] = (cs[l] * q - 0.5 * sn[l] * (x - y)) * e1;
             }
         }
     }
 
-    private void mixEven(int base, int bound) {
+    private void mixEven(int base, int bound, double[] dPre, double[] dPost, double[] dZ, int off) {
         final int nl = lanes;
         int i0 = base * nl;
+        double g0In = dPre[-1 + off];
+        double g0Out = dPost[off];
         for (int l = 0; l < nl; l++) {
-            double u = f[i0 + l];
-            double r = z[l];
-            f[i0 + l] = cs[l] * u - sn[l] * r;
-            z[l] = sn[l] * u + cs[l] * r;
+            double u = f[i0 + l] * (e2h[l] * g0In);
+            double r = e1h[l] * z[l] + rec[l];
+            f[i0 + l] = (cs[l] * u - sn[l] * r) * (e2h[l] * g0Out);
+            z[l] = e1h[l] * (sn[l] * u + cs[l] * r) + rec[l];
         }
         for (int k = 2; k <= bound; k += 2) {
             int ip = (base + k) * nl;
             int im = (base - k) * nl;
             int iz = k * nl;
+            double gpIn = dPre[k - 1 + off];
+            double gmIn = dPre[-k - 1 + off];
+            double gpOut = dPost[k + off];
+            double gmOut = dPost[-k + off];
+            double gz = dZ[k];
             for (int l = 0; l < nl; l++) {
-                double u = f[ip + l];
-                double v = f[im + l];
-                double r = z[iz + l];
-                f[ip + l] = c2[l] * u - s2[l] * v - sn[l] * r;
-                f[im + l] = -s2[l] * u + c2[l] * v - sn[l] * r;
-                z[iz + l] = 0.5 * sn[l] * (u + v) + cs[l] * r;
+                double e2 = e2h[l];
+                double e1 = e1h[l] * gz;
+                double u = f[ip + l] * (e2 * gpIn);
+                double v = f[im + l] * (e2 * gmIn);
+                double r = z[iz + l] * e1;
+                f[ip + l] = (c2[l] * u - s2[l] * v - sn[l] * r) * (e2 * gpOut);
+                f[im + l] = (-s2[l] * u + c2[l] * v - sn[l] * r) * (e2 * gmOut);
+                z[iz + l] = (0.5 * sn[l] * (u + v) + cs[l] * r) * e1;
             }
         }
     }

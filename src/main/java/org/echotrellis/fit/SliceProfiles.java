@@ -43,6 +43,10 @@ public final class SliceProfiles {
         if (spec == null || spec.equals("none")) {
             return SliceProfile.none();
         }
+        if ((spec.equals("sinc") || spec.equals("gauss")) && !java.nio.file.Files.exists(Path.of(spec))) {
+            throw new InputException("--slice-profile " + spec + " needs the pulse's time-bandwidth product: "
+                    + spec + ":TBW, e.g. " + spec + ":4");
+        }
         PulseShape shape;
         if (spec.startsWith("sinc:") || spec.startsWith("gauss:")) {
             String num = spec.substring(spec.indexOf(':') + 1);

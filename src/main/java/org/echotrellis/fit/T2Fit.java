@@ -42,7 +42,7 @@ public final class T2Fit implements VoxelKernel {
         VoxelStatus s = VoxelStatus.INVALID_INPUT;
         boolean finite = true;
         for (double v : y) {
-            finite &= Double.isFinite(v);
+            finite &= VoxelStatus.usable(v);
         }
         if (finite) {
             s = process(y, 0, n, b1Fixed, out);

@@ -17,7 +17,13 @@ package org.echotrellis.image;
  * peak, interpolated linearly between the last sample at or above and the first sample below half
  * (a single sample of height 1 with zero neighbours gives 0.5 + 0.5 = 1 pixel); the side lobe is
  * the largest sample outside the main lobe, relative to the peak. The PSF is periodic in L (a DFT),
- * so the walks wrap around.
+ * so the walks wrap around. *
+ * <p>Closed form used as a check (common practice; METHODS §13). Single-shot linear ordering (S = 1)
+ * with ideal 180° refocusing and echo spacing ESP: line j is echo j + 1, so wⱼ = r^(j+1) with
+ * r = exp(−ESP/T2), and w_c = r^(c+1). With θ = 2πx/L the sum is geometric:
+ * Σⱼ r^(j+1)·e^{iθ(j−c)} = r·e^{−iθc}·(1 − r^L·e^{iθL}) / (1 − r·e^{iθ}), and e^{iθL} = e^{i2πx} = 1
+ * for integer x, so PSF(x) = (1 − r^L) / (L·r^c·√(1 − 2r·cos θ + r²)): a peak of
+ * (1 − r^L)/(L·r^c·(1 − r)) at x = 0 and monotone flanks (no side lobes), wider for shorter T2.
  */
 public final class PointSpread {
     private PointSpread() { }

@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.List;
 
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * Reads a decay table from CSV (RFC 4180 through {@link Csv}: quoted names may hold commas and
@@ -32,10 +33,13 @@ public final class DecayTableReader {
     public static DecayTable read(Path file) {
         String where = file.toString();
         List<Csv.Row> lines;
+        InputFiles.requireRegular(file, where);
         try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
             lines = Csv.read(r);
         } catch (NoSuchFileException e) {
             throw new InputException(where + ": file not found");
+        } catch (java.nio.file.AccessDeniedException e) {
+            throw InputFiles.readFailure(where, e);
         } catch (java.nio.charset.CharacterCodingException | java.io.UncheckedIOException e) {
             throw new InputException(where + ": cannot read as UTF-8 text (" + e.getMessage() + ")", e);
         } catch (IOException e) {

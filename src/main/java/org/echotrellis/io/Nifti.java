@@ -17,6 +17,7 @@ import java.util.zip.GZIPOutputStream;
 import java.util.zip.ZipException;
 
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * Reading and writing NIfTI-1 single files ({@code .nii}, and {@code .nii.gz}: the whole file
@@ -40,6 +41,7 @@ public final class Nifti {
      */
     public static NiftiInput open(Path file) {
         String where = file.toString();
+        InputFiles.requireRegular(file, where);
         try {
             Path headerFile = pairHeader(file);
             NiftiHeader h = NiftiHeader.decode(readHead(headerFile, where), where);
@@ -59,7 +61,94 @@ public final class Nifti {
         } catch (ZipException | java.io.EOFException e) {
             throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
         } catch (IOException e) {
-            throw new InputException(where + ": cannot read (" + e.getMessage() + ")", e);
+            throw InputFiles.readFailure(where, e);
+        }
+    }
+
+    /** Free space kept after inflating: a tenth of what is free, at least 64 MB (common practice). */
+    static long freeSpaceMargin(long free) {
+        return Math.max(free / 10, 64L << 20);
+    }
+
+    /**
+     * Reads only the header (inflating the first 348 bytes of a {@code .nii.gz}), so shapes can be
+     * checked before any voxel data are inflated or allocated.
+     *
+     * @param file .nii or .nii.gz
+     * @return the header
+     * @throws InputException for a missing, unreadable or non-NIfTI file
+     */
+    public static NiftiHeader readHeader(Path file) {
+        String where = file.toString();
+        InputFiles.requireRegular(file, where);
+        try {
+            return NiftiHeader.decode(readHead(pairHeader(file), where), where);
+        } catch (ZipException | java.io.EOFException e) {
+            throw new InputException(where + ": corrupt or truncated gzip stream (" + e.getMessage() + ")", e);
+        } catch (IOException e) {
+            throw InputFiles.readFailure(where, e);
+        }
+    }
+
+    /**
+     * Reads a 3-D image that must lie on the grid of a series, checking its header first so a
+     * mismatched or oversized file is refused before its data are inflated or allocated.
+     *
+     * @param file the image (.nii or .nii.gz)
+     * @param grid header of the series
+     * @param option the option naming the file in messages, e.g. {@code --mask}
+     * @return the image
+     * @throws InputException naming both shapes when they differ
+     */
+    public static NiftiImage readOnGrid(Path file, NiftiHeader grid, String option) {
+        checkOnGrid(file, grid, option);
+        return read(file);
+    }
+
+    /**
+     * Checks from its header alone that a 3-D image lies on the grid of a series.
+     *
+     * @param file the image (.nii or .nii.gz); null is accepted and ignored
+     * @param grid header of the series
+     * @param option the option naming the file in messages
+     * @throws InputException naming both shapes when they differ
+     */
+    public static void checkOnGrid(Path file, NiftiHeader grid, String option) {
+        if (file != null) {
+            VolumeJob.sameGrid(grid, readHeader(file), option, file.toString());
+        }
+    }
+
+    private static final String TEMP_PREFIX = "echotrellis-inflated-";
+
+    /**
+     * A new temporary file for an inflated copy, named with this process id so that a later run can
+     * remove it if this process is killed; deleted on exit. Stale copies are removed first.
+     */
+    private static Path inflatedTemporary(String suffix) throws IOException {
+        Path tmpDir = Path.of(System.getProperty("java.io.tmpdir"));
+        cleanStaleTemporaries(tmpDir);
+        Path tmp = Files.createTempFile(tmpDir, TEMP_PREFIX + ProcessHandle.current().pid() + "-", suffix);
+        tmp.toFile().deleteOnExit();
+        return tmp;
+    }
+
+    /** Removes inflated copies left by processes that no longer run (killed with SIGKILL). */
+    private static void cleanStaleTemporaries(Path tmpDir) {
+        try (java.nio.file.DirectoryStream<Path> ds = Files.newDirectoryStream(tmpDir, TEMP_PREFIX + "*")) {
+            for (Path p : ds) {
+                String rest = p.getFileName().toString().substring(TEMP_PREFIX.length());
+                try {
+                    long pid = Long.parseLong(rest.substring(0, rest.indexOf('-')));
+                    if (ProcessHandle.of(pid).isEmpty()) {
+                        Files.deleteIfExists(p);
+                    }
+                } catch (RuntimeException | IOException ignored) {
+                    // not one of ours, or already gone
+                }
+            }
+        } catch (IOException | RuntimeException ignored) {
+            // best effort
         }
     }
 
@@ -135,8 +224,7 @@ public final class Nifti {
             }
             return new NiftiInput(h, ch, null, where);
         }
-        Path tmp = Files.createTempFile("echotrellis-", ".img");
-        tmp.toFile().deleteOnExit();
+        Path tmp = inflatedTemporary(".img");
         try (InputStream in = new GZIPInputStream(new BufferedInputStream(Files.newInputStream(image)), CHUNK);
                 OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
             copyBounded(in, out, 0, need, what);
@@ -249,8 +337,8 @@ public final class Nifti {
 
     /** Copies a decompressed stream into a temporary file, bounded by its header's declared size. */
     private static NiftiInput spool(InputStream in, String where) throws IOException {
-        Path tmp = Files.createTempFile("echotrellis-", ".nii");
-        tmp.toFile().deleteOnExit();
+        Path tmp = inflatedTemporary(".nii");
+        Path tmpDir = tmp.getParent();
         try (OutputStream out = new BufferedOutputStream(Files.newOutputStream(tmp), CHUNK)) {
             byte[] first = in.readNBytes(4);
             byte[] hb = java.util.Arrays.copyOf(first, NiftiHeader.headerSize(first, where));
@@ -261,9 +349,10 @@ public final class Nifti {
             }
             long need = h.voxOffset() + h.dataBytes();
             long free = Files.getFileStore(tmp).getUsableSpace();
-            if (need > free) {
-                throw new InputException(where + ": header declares " + need + " bytes, more than the " + free
-                        + " bytes free for its inflated temporary copy; refused");
+            if (need > free - freeSpaceMargin(free)) {
+                throw new InputException(where + ": header declares " + need + " bytes; its inflated temporary copy in "
+                        + tmpDir + " would leave less than " + (freeSpaceMargin(free) >> 20) + " MB of the " + (free >> 20)
+                        + " MB free; refused (set java.io.tmpdir to a larger disk, or decompress the file)");
             }
             out.write(hb);
             copyBounded(in, out, hb.length, need, where);

@@ -596,10 +596,14 @@ public final class NiftiHeader {
                     + "x" + d[7] + " declare more values than can be read (at most 2^31-1 volumes beyond dim 3)");
         }
         int minOffset = f == Format.NIFTI2 ? NIFTI2_HEADER_SIZE + 4 : f.paired() ? 0 : MIN_VOX_OFFSET;
-        if (!(off >= 0) || off > 1e12) {
-            throw new InputException(where + ": vox_offset must be a finite number >= " + minOffset + ", got " + off);
+        if (!(off >= minOffset) || off > 1e12 || off != Math.rint(off)) {
+            // the data follow the header (nifti1.h, nifti2.h): any smaller offset, negative or
+            // positive, would read the header as voxel data, so both are refused alike
+            throw new InputException(where + ": vox_offset must be a whole number >= " + minOffset
+                    + " (data after the header), got "
+                    + (off == Math.rint(off) && Math.abs(off) < 1e12 ? String.valueOf((long) off) : String.valueOf(off)));
         }
-        long voxOffset = Math.max(minOffset, (long) off);
+        long voxOffset = (long) off;
         float[] p = new float[8];
         for (int i = 0; i < 8; i++) {
             p[i] = (float) pd[i];

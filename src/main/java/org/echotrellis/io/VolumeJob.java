@@ -35,8 +35,8 @@ public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<Nif
             throw new InputException(data.source() + ": expected a 4-D series (x, y, z, echo) or a 5-D one (x, y, z, 1, echo), got "
                     + h.rank() + " dimensions with dim[4] = " + h.size(4));
         }
-        mask.ifPresent(m -> sameGrid(h, m, "mask"));
-        b1Map.ifPresent(b -> sameGrid(h, b, "B1 map"));
+        mask.ifPresent(m -> sameGrid(h, m.header(), "mask", m.source()));
+        b1Map.ifPresent(b -> sameGrid(h, b.header(), "B1 map", b.source()));
     }
 
     /**
@@ -73,17 +73,43 @@ public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<Nif
         return m != 0 && !Double.isNaN(m);
     }
 
-    private static void sameGrid(NiftiHeader h, NiftiImage img, String role) {
-        NiftiHeader m = img.header();
+    /**
+     * Refuses an image that is not a 3-D volume on the series grid (shape and geometry), naming
+     * both shapes.
+     *
+     * @param h header of the series
+     * @param m header of the image
+     * @param role what the image is, e.g. "mask" or "--b1-map"
+     * @param source file name of the image
+     */
+    static void sameGrid(NiftiHeader h, NiftiHeader m, String role, String source) {
         boolean ok = m.volumes() == 1 && m.size(1) == h.size(1) && m.size(2) == h.size(2) && m.size(3) == h.size(3);
         if (!ok) {
-            throw new InputException(role + " " + img.source() + ": shape " + shape(m) + " does not match the data grid "
+            throw new InputException(role + " " + source + ": shape " + shape(m) + " does not match the data grid "
                     + h.size(1) + "x" + h.size(2) + "x" + h.size(3) + " (a 3-D image on the same grid is required)");
         }
         String diff = NiftiAffine.difference(h, m);
         if (diff != null) {
-            throw new InputException(role + " " + img.source() + ": same shape as the data, but another geometry: " + diff
+            throw new InputException(role + " " + source + ": same shape as the data, but another geometry: " + diff
                     + " (a 3-D image on the same grid is required)");
+        }
+    }
+
+    /**
+     * Refuses a series that is not 4-D with one volume per echo.
+     *
+     * @param h header of the series
+     * @param source its file name
+     * @param echoes echoes of the protocol
+     */
+    public static void checkSeries(NiftiHeader h, String source, int echoes) {
+        if (h.rank() < 4 || h.volumes() == 1 && echoes > 1) {
+            throw new InputException(source + ": a " + h.rank() + "-D image of shape " + shape(h) + "; DATA must be a "
+                    + "4-D series (x, y, z, echo) with one volume per echo (" + echoes + " in the protocol)");
+        }
+        if (h.volumes() != echoes) {
+            throw new InputException(source + ": " + h.volumes() + " echoes (dim 4 of shape " + shape(h)
+                    + "), but the protocol has " + echoes);
         }
     }
 

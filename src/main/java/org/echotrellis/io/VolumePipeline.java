@@ -126,7 +126,7 @@ public final class VolumePipeline {
             boolean valid = job.b1Map().isEmpty() || (b1 > 0 && Double.isFinite(b1));
             int off = v * echoes;
             for (int e = 0; e < echoes && valid; e++) {
-                valid = Double.isFinite(slab[off + e]);
+                valid = VoxelStatus.usable(slab[off + e]);
             }
             VoxelStatus s;
             if (valid) {

@@ -55,4 +55,16 @@ public enum VoxelStatus {
     public static VoxelStatus ofCode(int code) {
         return values()[code];
     }
+
+    /** Largest signal magnitude accepted: beyond it squares overflow and a fit is meaningless. */
+    public static final double MAX_SIGNAL = 1e100;
+
+    /**
+     * @param v a signal value
+     * @return whether it can be fitted: finite and within ±{@link #MAX_SIGNAL} (else the voxel or
+     *         decay is {@link #INVALID_INPUT})
+     */
+    public static boolean usable(double v) {
+        return Math.abs(v) <= MAX_SIGNAL;
+    }
 }

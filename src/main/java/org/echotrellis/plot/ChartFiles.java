@@ -90,15 +90,34 @@ public final class ChartFiles {
     public static void write(JFreeChart chart, Path out, int widthPx, int heightPx, boolean force) {
         boolean svg = isSvg(out);
         double scale = PlotSettings.current().scale();
-        AtomicFiles.write(out, force, stream -> {
-            if (svg) {
-                Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
-                w.write(svg(chart, widthPx, heightPx, scale));
-                w.flush();
-            } else {
-                ImageIO.write(png(chart, widthPx, heightPx, scale), "png", stream);
-            }
-        });
+        AtomicFiles.write(out, force, stream -> writeTo(stream, chart, widthPx, heightPx, svg, scale));
+    }
+
+    /**
+     * Renders a chart at scale 1 and writes it to a stream (see the scaled variant).
+     */
+    static void writeTo(java.io.OutputStream stream, JFreeChart chart, int widthPx, int heightPx, boolean svg)
+            throws java.io.IOException {
+        writeTo(stream, chart, widthPx, heightPx, svg, 1);
+    }
+
+    /**
+     * Renders a chart and writes it to a stream. The image is encoded in memory first, so a failing
+     * stream (a full disk) surfaces as the stream's own {@link java.io.IOException} with the system's
+     * reason, not as an image-encoder error.
+     */
+    static void writeTo(java.io.OutputStream stream, JFreeChart chart, int widthPx, int heightPx, boolean svg,
+            double scale) throws java.io.IOException {
+        if (svg) {
+            Writer w = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
+            w.write(svg(chart, widthPx, heightPx, scale));
+            w.flush();
+        } else {
+            java.io.ByteArrayOutputStream png = new java.io.ByteArrayOutputStream(1 << 17);
+            ImageIO.write(png(chart, widthPx, heightPx, scale), "png", png);
+            png.writeTo(stream);
+            stream.flush();
+        }
     }
 
     private static BufferedImage png(JFreeChart chart, int widthPx, int heightPx, double scale) {

@@ -79,8 +79,19 @@ public final class LineChart {
         if (x.length != y.length) {
             throw new IllegalArgumentException("series " + name + ": x and y lengths differ");
         }
-        series.add(new Series(name, x.clone(), y.clone(), look, color));
+        series.add(new Series(name, plottable(x), plottable(y), look, color));
         return this;
+    }
+
+    /** Values beyond ±1e100 cannot be drawn (axis arithmetic overflows): they become gaps (NaN). */
+    private static double[] plottable(double[] v) {
+        double[] c = v.clone();
+        for (int i = 0; i < c.length; i++) {
+            if (!(Math.abs(c[i]) <= 1e100)) {
+                c[i] = Double.NaN;
+            }
+        }
+        return c;
     }
 
     /** Sets a subtitle line under the title. */

@@ -69,6 +69,40 @@ public record Acquisition(Optional<RfPulse> excitationPulse, Optional<RfPulse> r
         return crusher.isPresent() && diffusivityMm2PerS > 0;
     }
 
+    /**
+     * The settings as written in a protocol file, for JSON outputs: {@code slice}, {@code repetition_ms}
+     * (null for one train from equilibrium), {@code excitation_pulse}, {@code refocusing_pulse} and
+     * {@code crusher} (null when not given).
+     *
+     * @return an ordered map of plain values
+     */
+    public java.util.Map<String, Object> settings() {
+        java.util.Map<String, Object> m = new java.util.LinkedHashMap<>();
+        java.util.Map<String, Object> slice = new java.util.LinkedHashMap<>();
+        slice.put("selective", sliceSelective);
+        slice.put("refocusing_width_ratio", refocusingWidthRatio);
+        m.put("slice", slice);
+        m.put("repetition_ms", hasRepetition() ? repetitionMs : null);
+        m.put("excitation_pulse", excitationPulse.map(Acquisition::pulse).orElse(null));
+        m.put("refocusing_pulse", refocusingPulse.map(Acquisition::pulse).orElse(null));
+        m.put("crusher", crusher.map(c -> {
+            java.util.Map<String, Object> x = new java.util.LinkedHashMap<>();
+            x.put("cycles_per_mm", c.cyclesPerMm());
+            x.put("duration_ms", c.durationMs());
+            return (Object) x;
+        }).orElse(null));
+        return m;
+    }
+
+    private static Object pulse(RfPulse p) {
+        java.util.Map<String, Object> x = new java.util.LinkedHashMap<>();
+        x.put("shape", p.shape());
+        x.put("time_bandwidth", Double.isNaN(p.timeBandwidth()) ? null : p.timeBandwidth());
+        x.put("duration_ms", p.durationMs());
+        x.put("file", p.file().isEmpty() ? null : p.file());
+        return x;
+    }
+
     /** @return the refocusing pulse duration τ in ms (0 for a hard pulse) */
     public double refocusingDurationMs() {
         return refocusingPulse.map(RfPulse::durationMs).orElse(0.0);

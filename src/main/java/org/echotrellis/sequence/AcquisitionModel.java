@@ -64,6 +64,8 @@ public final class AcquisitionModel {
     private final double[] dZ;
     private final ThreadLocal<Work> work;
     private final CpmgTrain realTrain;
+    private final PulseShape excEnvelope;
+    private final PulseShape refEnvelope;
 
     private AcquisitionModel(Protocol p, double b1Max) {
         CpmgTrain train = p.train().orElseThrow(() -> new IllegalArgumentException(
@@ -128,6 +130,8 @@ public final class AcquisitionModel {
         diffusionFactors(acq, p.tissue().diffusivityMm2PerS());
         int positions = selective ? grid.size() : 1;
         realTrain = !selective && train.isCpmgPhased() ? train : null;
+        excEnvelope = selective ? acq.excitationPulse().get().envelope() : null;
+        refEnvelope = selective ? acq.refocusingPulse().get().envelope() : null;
         work = ThreadLocal.withInitial(() -> new Work(echoes, kindFlipRad.length, positions, dPre, dPost, dZ));
     }
 
@@ -339,6 +343,81 @@ public final class AcquisitionModel {
             outRe[i] = v * c;
             outIm[i] = v * s;
         }
+    }
+
+    /**
+     * The acquisition as a sum of trains of ideal pulses, one per slice position (both sides of the
+     * slice listed), for pathway analysis: see {@link LocalTrain}. Rotations are Bloch-simulated directly
+     * (no tables). Diffusion is not representable this way.
+     *
+     * @param t1Ms T1 in ms
+     * @param t2Ms T2 in ms
+     * @param b1 B1 scale
+     * @return the local trains (one for a non-selective protocol)
+     * @throws IllegalStateException if the protocol has diffusion
+     */
+    public java.util.List<LocalTrain> localTrains(double t1Ms, double t2Ms, double b1) {
+        for (double d : dPre) {
+            if (d != 1.0) {
+                throw new IllegalStateException("diffusion cannot be written as trains of ideal pulses");
+            }
+        }
+        Work w = work.get();
+        double e2h = Math.exp(-0.5 * espMs / t2Ms);
+        double e1h = Math.exp(-0.5 * espMs / t1Ms);
+        double eRec = Double.isFinite(repetitionMs) ? Math.exp(-(repetitionMs - echoes * espMs) / t1Ms) : 0;
+        java.util.List<LocalTrain> out = new ArrayList<>();
+        double[] excSteps = selective ? PulseRotation.steps(excEnvelope, PulseRotation.STEPS) : null;
+        double[] refSteps = selective ? PulseRotation.steps(refEnvelope, PulseRotation.STEPS) : null;
+        int positions = positions();
+        double[][] kindRot = new double[kindFlipRad.length][4];
+        double[] exc = new double[4];
+        for (int i = 0; i < positions; i++) {
+            int sides = selective && grid.halfLine() && i > 0 ? 2 : 1;
+            for (int side = 0; side < sides; side++) {
+                double sign = side == 0 ? 1 : -1;
+                double weight = selective ? (grid.halfLine() ? grid.weights()[i] / sides : grid.weights()[i]) : 1.0;
+                if (selective) {
+                    PulseRotation.centre(excSteps, b1 * excFlipRad, sign * grid.excitationFreq()[i], exc);
+                } else {
+                    ideal(b1 * excFlipRad, exc);
+                }
+                phase(exc, excPhaseRad + frameRad);
+                for (int k = 0; k < kindFlipRad.length; k++) {
+                    if (selective) {
+                        PulseRotation.centre(refSteps, b1 * kindFlipRad[k], sign * grid.refocusingFreq()[i], kindRot[k]);
+                    } else {
+                        ideal(b1 * kindFlipRad[k], kindRot[k]);
+                    }
+                    phase(kindRot[k], kindPhaseRad[k] + frameRad);
+                    TrainKernel.coefficients(kindRot[k][0], kindRot[k][1], kindRot[k][2], kindRot[k][3], w.coef, 18 * k);
+                }
+                double m = 1;
+                if (eRec > 0) {
+                    double z0 = exc[0] * exc[0] + exc[1] * exc[1] - exc[2] * exc[2] - exc[3] * exc[3];
+                    double a = w.kernel.run(w.coef, kindOf, false, 0, 0, z0, false, e2h, e1h, 0, null, null);
+                    double b = w.kernel.run(w.coef, kindOf, false, 0, 0, 0, true, e2h, e1h, 0, null, null);
+                    m = (b * eRec + 1 - eRec) / (1 - a * eRec);
+                }
+                double[] flips = new double[echoes];
+                double[] phases = new double[echoes];
+                double[] psi = new double[echoes];
+                double chiE = -Math.atan2(exc[1], exc[0]);
+                double acc = chiE;
+                for (int p = 0; p < echoes; p++) {
+                    double[] r = kindRot[kindOf[p]];
+                    double chi = -Math.atan2(r[1], r[0]);
+                    flips[p] = Math.toDegrees(2 * Math.atan2(Math.hypot(r[2], r[3]), Math.hypot(r[0], r[1])));
+                    phases[p] = Math.toDegrees(Math.atan2(r[3], r[2]) + 0.5 * Math.PI - chi - acc);
+                    acc += 2 * chi;
+                    psi[p] = acc;
+                }
+                double excFlip = Math.toDegrees(2 * Math.atan2(Math.hypot(exc[2], exc[3]), Math.hypot(exc[0], exc[1])));
+                double excPhase = Math.toDegrees(Math.atan2(exc[3], exc[2]) + 0.5 * Math.PI);
+                out.add(new LocalTrain(weight * m, excFlip, excPhase, flips, phases, psi));
+            }
+        }
+        return out;
     }
 
     private static void ideal(double flipRad, double[] r) {

@@ -3,6 +3,7 @@ package org.echotrellis.sequence;
 import com.fasterxml.jackson.core.JsonLocation;
 import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonToken;
+import com.fasterxml.jackson.dataformat.yaml.YAMLParser;
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.Collections;
@@ -28,23 +29,38 @@ final class Node {
         this.where = where;
     }
 
+    /** Most YAML aliases resolved per document (each counts its whole subtree against MAX_ITEMS). */
+    static final int MAX_ALIASES = 10;
+
+    /** Parse state: values read, aliases resolved and anchors seen so far. */
+    private static final class Context {
+        final String file;
+        final Map<String, Node> anchors = new java.util.HashMap<>();
+        int count;
+        int aliases;
+
+        Context(String file) {
+            this.file = file;
+        }
+    }
+
     static Node read(JsonParser p, String file) throws IOException {
-        int[] count = {0};
         p.nextToken();
         if (p.currentToken() == null) {
             throw new InputException(file + ": file is empty");
         }
-        return read(p, file, 0, count);
+        return read(p, 0, new Context(file));
     }
 
-    private static Node read(JsonParser p, String file, int depth, int[] count) throws IOException {
+    private static Node read(JsonParser p, int depth, Context c) throws IOException {
         JsonLocation loc = p.currentTokenLocation();
-        String where = file + ":" + loc.getLineNr() + ":" + loc.getColumnNr();
-        if (depth > MAX_DEPTH || ++count[0] > MAX_ITEMS) {
-            throw new InputException(where + ": document too deeply nested or too large (limits: depth "
-                    + MAX_DEPTH + ", " + MAX_ITEMS + " values)");
+        String where = c.file + ":" + loc.getLineNr() + ":" + loc.getColumnNr();
+        if (depth > MAX_DEPTH || ++c.count > MAX_ITEMS) {
+            throw tooLarge(where);
         }
         JsonToken t = p.currentToken();
+        String anchor = p instanceof YAMLParser y && (t == JsonToken.START_OBJECT || t == JsonToken.START_ARRAY)
+                ? y.getObjectId() : null;
         switch (t) {
             case START_OBJECT -> {
                 Map<String, Node> map = new LinkedHashMap<>();
@@ -52,23 +68,28 @@ final class Node {
                     String key = p.currentName();
                     JsonLocation kl = p.currentTokenLocation();
                     p.nextToken();
-                    Node v = read(p, file, depth + 1, count);
+                    Node v = read(p, depth + 1, c);
                     if (map.put(key, v) != null) {
-                        throw new InputException(file + ":" + kl.getLineNr() + ":" + kl.getColumnNr()
-                                + ": key '" + key + "' appears twice");
+                        throw new InputException(c.file + ":" + kl.getLineNr() + ":" + kl.getColumnNr()
+                                + ": key '" + sanitise(key) + "' appears twice");
                     }
                 }
-                return new Node(Collections.unmodifiableMap(map), where);
+                return anchored(new Node(Collections.unmodifiableMap(map), where), anchor, c);
             }
             case START_ARRAY -> {
                 List<Node> list = new ArrayList<>();
                 while (p.nextToken() != JsonToken.END_ARRAY) {
-                    list.add(read(p, file, depth + 1, count));
+                    list.add(read(p, depth + 1, c));
                 }
-                return new Node(Collections.unmodifiableList(list), where);
+                return anchored(new Node(Collections.unmodifiableList(list), where), anchor, c);
             }
             case VALUE_NUMBER_INT, VALUE_NUMBER_FLOAT -> {
                 String text = p.getText();
+                if (t == JsonToken.VALUE_NUMBER_INT && !text.matches("[+-]?(0|[1-9][0-9]*)")) {
+                    // YAML 1.1 reads 010 as octal 8, 0x10 as 16 and 1_000 as 1000: ambiguous, refused
+                    throw new InputException(where + ": write whole numbers in plain decimal without leading zeros, "
+                            + "got '" + sanitise(text) + "' (0x, 0o, 0b, leading-zero and _ forms are refused)");
+                }
                 try {
                     return new Node(p.getDoubleValue(), where);
                 } catch (IOException | NumberFormatException e) {
@@ -83,9 +104,77 @@ final class Node {
                 return new Node(null, where);
             }
             default -> {
+                if (p instanceof YAMLParser y && y.isCurrentAlias()) {
+                    return alias(p.getText(), where, c);
+                }
                 return new Node(p.getText(), where);
             }
         }
+    }
+
+    private static Node anchored(Node n, String anchor, Context c) {
+        if (anchor != null) {
+            c.anchors.put(anchor, n);
+        }
+        return n;
+    }
+
+    /** Resolves {@code *name} to the mapping or list anchored as {@code &name} earlier in the document. */
+    private static Node alias(String name, String where, Context c) {
+        Node target = c.anchors.get(name);
+        if (target == null) {
+            throw new InputException(where + ": YAML alias *" + sanitise(name) + " does not name an anchored mapping or "
+                    + "list (aliases of single values are not supported; write the value out)");
+        }
+        if (++c.aliases > MAX_ALIASES) {
+            throw new InputException(where + ": more than " + MAX_ALIASES + " YAML aliases");
+        }
+        c.count += size(target);
+        if (c.count > MAX_ITEMS) {
+            throw tooLarge(where);
+        }
+        return target;
+    }
+
+    private static int size(Node n) {
+        int s = 1;
+        if (n.value instanceof Map<?, ?> m) {
+            for (Object v : m.values()) {
+                s += size((Node) v);
+            }
+        } else if (n.value instanceof List<?> l) {
+            for (Object v : l) {
+                s += size((Node) v);
+            }
+        }
+        return s;
+    }
+
+    private static InputException tooLarge(String where) {
+        return new InputException(where + ": document too deeply nested or too large (limits: depth "
+                + MAX_DEPTH + ", " + MAX_ITEMS + " values)");
+    }
+
+    /**
+     * Replaces control and formatting characters (ESC, CR, bidirectional overrides, ...) with '?', so
+     * text from a protocol file can be printed to a terminal.
+     *
+     * @param s text
+     * @return printable text
+     */
+    static String sanitise(String s) {
+        StringBuilder b = null;
+        for (int i = 0; i < s.length(); i++) {
+            char ch = s.charAt(i);
+            int type = Character.getType(ch);
+            if (type == Character.CONTROL || type == Character.FORMAT) {
+                if (b == null) {
+                    b = new StringBuilder(s);
+                }
+                b.setCharAt(i, '?');
+            }
+        }
+        return b == null ? s : b.toString();
     }
 
     boolean isMap() {
@@ -137,7 +226,7 @@ final class Node {
 
     String text(String key) {
         if (value instanceof String s) {
-            return s;
+            return sanitise(s);
         }
         if (value instanceof Double d) {
             return d == Math.rint(d) ? Long.toString(d.longValue()) : d.toString();
@@ -155,14 +244,14 @@ final class Node {
         if (value instanceof List) {
             return "a list";
         }
-        return "'" + value + "'";
+        return "'" + (value instanceof String s ? sanitise(s) : value) + "'";
     }
 
     /** Refuses keys outside the allowed set, naming the key and listing the allowed ones. */
     static void allowOnly(Node mapNode, String what, Set<String> allowed) {
         for (Map.Entry<String, Node> e : mapNode.map(what).entrySet()) {
             if (!allowed.contains(e.getKey())) {
-                throw new InputException(e.getValue().where + ": unknown key '" + e.getKey() + "' in " + what
+                throw new InputException(e.getValue().where + ": unknown key '" + sanitise(e.getKey()) + "' in " + what
                         + "; allowed: " + String.join(", ", allowed));
             }
         }

@@ -134,7 +134,7 @@ public final class ProtocolReader {
         Map<String, Node> top = root.map("the protocol");
         String name = top.containsKey("name") ? top.get("name").text("name") : fileStem(src);
         String description = top.containsKey("description") ? top.get("description").text("description") : "";
-        Tissue tissue = top.containsKey("tissue") ? tissue(top.get("tissue")) : new Tissue("default", 1000, 100);
+        Tissue tissue = top.containsKey("tissue") ? tissue(top.get("tissue")) : DEFAULT_TISSUE;
         boolean hasTrain = top.containsKey("train");
         boolean hasEvents = top.containsKey("events");
         if (hasTrain == hasEvents) {
@@ -146,12 +146,27 @@ public final class ProtocolReader {
             Node.allowOnly(tn, "train", TRAIN);
             Map<String, Node> t = tn.map("train");
             if (t.containsKey("b1_scale")) {
+                if (top.containsKey("b1_scale")) {
+                    throw new InputException(t.get("b1_scale").where + ": b1_scale is given twice, at the top level ("
+                            + top.get("b1_scale").where + ") and in train; give it once");
+                }
                 b1 = b1(t.get("b1_scale"));
             }
             CpmgTrain train = train(tn);
             return Protocol.ofTrain(name, description, tissue, b1, train, src, AcquisitionReader.read(tn, train, src));
         }
         return new Protocol(name, description, tissue, b1, events(top.get("events"), src), Optional.empty(), src);
+    }
+
+    /** Tissue of a protocol without a {@code tissue} section (T1 1000 ms, T2 100 ms). */
+    private static final Tissue DEFAULT_TISSUE = new Tissue("default", 1000, 100);
+
+    /**
+     * @param p a protocol read by this class
+     * @return true if its file had no {@code tissue} section, so T1 1000 ms and T2 100 ms were assumed
+     */
+    public static boolean tissueAssumed(Protocol p) {
+        return p.tissue() == DEFAULT_TISSUE;
     }
 
     private static String fileStem(String src) {

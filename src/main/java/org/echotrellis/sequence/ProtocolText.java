@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.Locale;
 
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * A protocol document as text: what a distributed job ships to its workers instead of the parsed
@@ -48,15 +49,16 @@ public record ProtocolText(String text, String source, boolean yaml) implements 
             if (Files.isDirectory(file)) {
                 throw new InputException(name + ": is a directory, expected a protocol file");
             }
-            if (!Files.isRegularFile(file)) {
+            if (!Files.exists(file)) {
                 throw new InputException(name + ": no such file");
             }
+            InputFiles.requireRegular(file, name);
             if (Files.size(file) > ProtocolReader.MAX_FILE_BYTES) {
                 throw new InputException(name + ": file larger than " + ProtocolReader.MAX_FILE_BYTES + " bytes");
             }
             return new ProtocolText(Files.readString(file, StandardCharsets.UTF_8), name, yaml);
         } catch (IOException e) {
-            throw new InputException(name + ": cannot read (" + e.getMessage() + ")", e);
+            throw InputFiles.readFailure(name, e);
         }
     }
 

@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
+import org.echotrellis.InputFiles;
 
 /**
  * An RF pulse envelope b(t), real (amplitude-modulated), sampled uniformly over the pulse and
@@ -141,7 +142,8 @@ public record PulseShape(String label, double[] samples) {
     public static PulseShape fromFile(Path file, String option) {
         List<String> lines;
         try {
-            if (Files.isRegularFile(file) && Files.size(file) > MAX_FILE_BYTES) {
+            InputFiles.requireRegular(file, option + " " + file);
+            if (Files.size(file) > MAX_FILE_BYTES) {
                 throw new InputException(option + " " + file + ": file larger than " + MAX_FILE_BYTES + " bytes");
             }
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);
@@ -149,7 +151,9 @@ public record PulseShape(String label, double[] samples) {
             throw new InputException(option + " " + file + ": file not found");
         } catch (InputException e) {
             throw e;
-        } catch (IOException | RuntimeException e) {
+        } catch (IOException e) {
+            throw InputFiles.readFailure(option + " " + file, e);
+        } catch (RuntimeException e) {
             throw new InputException(option + " " + file + ": cannot read (" + e.getMessage() + ")", e);
         }
         List<Double> values = new ArrayList<>();

@@ -136,6 +136,8 @@ class ImageCommandTest {
             {"--phase-lines", "64", "--phantom", png.toString(), "--label", "1=csf", "--plot", tmp.resolve("c.png").toString()},
             {"--phase-lines", "64", "--phantom", png.toString(), "--label", "1=wm", "--plot", tmp.resolve("d.png").toString()},
             {"--phase-lines", "64", "--plot", tmp.resolve("e.gif").toString()},
+            {"--phase-lines", "64", "--seed", "3"},
+            {"--phase-lines", "64", "--plot", tmp.resolve("f.png").toString(), "--out", tmp.resolve("g").toString()},
         };
         for (String[] c : cases) {
             String[] args = new String[c.length + 2];

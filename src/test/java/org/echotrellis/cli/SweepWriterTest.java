@@ -21,7 +21,7 @@ class SweepWriterTest {
         for (int echoes : new int[] {1, 3, 16, 80, 1024}) {
             int c = SweepWriter.chunkPoints(echoes);
             assertTrue(c >= Sweep.LANES && c % Sweep.LANES == 0, "echoes " + echoes + ": " + c);
-            assertTrue((long) c * echoes <= SweepWriter.CHUNK_VALUES, "echoes " + echoes + ": " + c);
+            assertTrue((long) c * (8L * echoes + 40) <= SweepWriter.CHUNK_BYTES, "echoes " + echoes + ": " + c);
         }
     }
 
@@ -41,9 +41,13 @@ class SweepWriterTest {
             String[] lines = small.toString().split("\n");
             assertEquals(1 + grid.size(), lines.length);
             assertTrue(lines[0].startsWith("t1_ms,t2_ms,b1,echo_1,"), lines[0]);
+            double[] t1 = new double[grid.size()];
+            double[] t2 = new double[grid.size()];
+            double[] b1 = new double[grid.size()];
+            grid.fill(0, grid.size(), t1, t2, b1);
             for (int i = 0; i < grid.size(); i++) {
                 String[] row = lines[1 + i].split(",");
-                EchoTrain single = Simulator.simulate(p, grid.t1Ms()[i], grid.t2Ms()[i], grid.b1()[i]);
+                EchoTrain single = Simulator.simulate(p, t1[i], t2[i], b1[i]);
                 assertEquals(3 + single.size(), row.length);
                 for (int e = 0; e < single.size(); e++) {
                     // printed with 9 significant digits

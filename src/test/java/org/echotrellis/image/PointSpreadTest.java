@@ -47,6 +47,7 @@ class PointSpreadTest {
         }
     }
 
+    /** The closed form and its derivation are in the Javadoc of {@link PointSpread}. */
     @Test
     void singleShotLinearExponentialMatchesTheGeometricSum() {
         // single shot (S = 1), linear: line j is echo j + 1, weight r^(j+1), r = exp(−ESP/T2), centre weight

@@ -61,6 +61,9 @@ public final class DesignCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @Mixin
+    ReportOption htmlReport;
+
     @Option(names = "--protocol", required = true, paramLabel = "FILE",
             description = "Protocol file with the echo train and design tissue (.yaml, .yml or .json).")
     Path protocol;
@@ -191,6 +194,7 @@ public final class DesignCommand implements Callable<Integer> {
         RfExposure rf = rf(p);
         SarReference reference = reference(p, train, rf);
         List<Tissue> compare = compareTissues(tissueName);
+        htmlReport.begin(spec, force);
         try (OutputSet set = out == null ? null : DesignOutputs.open(out, force, inputs())) {
             return run(p, problem, limits, rf, reference, compare, set);
         }
@@ -238,6 +242,8 @@ public final class DesignCommand implements Callable<Integer> {
                 err.flush();
             }
         }
+        htmlReport.settings(CommandReports.acquisition(p));
+        htmlReport.write("design: " + p.name(), force, r -> CommandReports.design(r, report));
         return 0;
     }
 

@@ -63,6 +63,9 @@ public final class FitCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @Mixin
+    ReportOption report;
+
     @Parameters(index = "0", paramLabel = "DATA", description = "CSV decay table or NIfTI-1 series (.nii, .nii.gz).")
     Path data;
 
@@ -153,6 +156,7 @@ public final class FitCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        report.begin(spec, force);
         Protocol p = ProtocolReader.read(protocol);
         CpmgTrain train = p.cpmg().orElseThrow(() -> new InputException("--protocol " + protocol
                 + ": fit needs a CPMG train (constant echo spacing, refocusing phase = excitation phase ± 90°)"));
@@ -168,7 +172,7 @@ public final class FitCommand implements Callable<Integer> {
             }
             double sigma = tableSigma();
             T2Fit.Factory f = new T2Fit.Factory(options.settings(train).withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o);
+            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o, report);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -186,7 +190,7 @@ public final class FitCommand implements Callable<Integer> {
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
         new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask), protocol)
-                .run(data, mask, b1Map, b1MapUnits, n, info, format == Format.json, o, spec.commandLine().getErr());
+                .run(data, mask, b1Map, b1MapUnits, n, info, format == Format.json, o, spec.commandLine().getErr(), report);
         return 0;
     }
 

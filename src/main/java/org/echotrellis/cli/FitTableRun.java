@@ -50,7 +50,7 @@ final class FitTableRun {
         this.inputs = inputs;
     }
 
-    void run(Path csv, boolean json, PrintWriter o) {
+    void run(Path csv, boolean json, PrintWriter o, ReportOption report) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
@@ -106,6 +106,13 @@ final class FitTableRun {
                 ChartFiles.write(chart.build(), f, 900, 560, force);
             }
         }
+        report.settings(Tables.protocolJson(protocol));
+        report.write("fit: " + csv.getFileName(), force, r -> {
+            var s = r.section("Fits").records("One row per decay", rows);
+            if (!plotFiles.isEmpty()) {
+                s.chart(chart.build(), 900, 560, "Decays of " + csv.getFileName() + " with the fitted curves");
+            }
+        });
     }
 
     private static void checkTimes(DecayTable t, CpmgTrain train) {

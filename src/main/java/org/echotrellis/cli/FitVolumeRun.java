@@ -9,6 +9,8 @@ import java.util.Map;
 import java.util.Optional;
 
 import org.echotrellis.InputException;
+import org.echotrellis.fit.T2Fit;
+import org.echotrellis.fit.volume.FitOptions;
 import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.fit.volume.VolumeMaps;
 import org.echotrellis.io.Nifti;
@@ -22,6 +24,7 @@ import org.echotrellis.io.VolumeResult;
 import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.MapPreview;
 import org.echotrellis.plot.PlotSettings;
+import org.echotrellis.report.FitReport;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
 final class FitVolumeRun {
@@ -50,7 +53,7 @@ final class FitVolumeRun {
     private static final String[] FORMATS = {".png", ".svg"};
 
     VolumeMaps run(Path data, Path maskFile, Path b1File, FitCommand.B1Units b1Units, int threads,
-            Map<String, Object> info, boolean json, PrintWriter o, PrintWriter err) {
+            Map<String, Object> info, boolean json, PrintWriter o, PrintWriter err, ReportOption report) {
         // every header is checked (series against protocol, mask and B1 map against the series)
         // before any file is inflated or any voxel array allocated
         NiftiHeader grid = Nifti.readHeader(data);
@@ -73,6 +76,8 @@ final class FitVolumeRun {
             previews(res, h);
             RunSummary.write(outDir.resolve("summary.json"), res, info, force);
             set.commit();
+            report.settings(info);
+            report.write("fit: " + data.getFileName(), force, r -> FitReport.volume(r, res, in, b1, sampleFit(maps)));
             double[] t2 = res.fittedValues("t2_ms");
             if (json) {
                 o.println(org.echotrellis.io.Json.write(RunSummary.build(res, info)).strip());
@@ -115,6 +120,13 @@ final class FitVolumeRun {
                         .filter(e -> e.getValue() > 0 && e.getKey() != VoxelStatus.OUTSIDE_MASK)
                         .map(e -> e.getValue() + " " + e.getKey().label()).collect(java.util.stream.Collectors.joining(", "))
                 + ")" + hint);
+    }
+
+    /** The run's fit factory with the noise σ actually used, to draw the sample voxels' curves. */
+    private T2Fit.Factory sampleFit(VolumeMaps maps) {
+        FitOptions opts = analysis.fitOptions().orElseThrow();
+        return new T2Fit.Factory(analysis.fitSettings().orElseThrow().withNoiseSigma(maps.noiseSigma()), opts.model(),
+                opts.compareMono());
     }
 
     private static List<String> plannedFiles(List<String> outputs) {

@@ -63,6 +63,9 @@ public final class ImageCommand implements Callable<Integer> {
     CommandSpec spec;
 
     @Mixin
+    ReportOption htmlReport;
+
+    @Mixin
     ProtocolInput input;
 
     @Option(names = "--phase-lines", required = true, paramLabel = "L",
@@ -137,6 +140,7 @@ public final class ImageCommand implements Callable<Integer> {
             }
         }
         List<Path> targets = targets();
+        htmlReport.begin(spec, force);
         Protocol p = input.load();
         List<Tissue> ts = tissues(p);
         KSpaceOrdering o = ordering(p.echoCount());
@@ -167,6 +171,8 @@ public final class ImageCommand implements Callable<Integer> {
         if (out != null) {
             AtomicFiles.writeString(out.resolve(JSON_FILE), Json.write(ImageOutputs.json(report)), force);
         }
+        htmlReport.settings(CommandReports.acquisition(p));
+        htmlReport.write("image: " + p.name(), force, r -> CommandReports.image(r, report, p.name()));
         return 0;
     }
 

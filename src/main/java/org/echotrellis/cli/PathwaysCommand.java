@@ -14,6 +14,7 @@ import org.echotrellis.pathway.PathwaySearch;
 import org.echotrellis.pathway.PhaseGraph;
 import org.echotrellis.pathway.TopPathways;
 import org.echotrellis.plot.ChartFiles;
+import org.jfree.chart.JFreeChart;
 import org.echotrellis.plot.ClassContributionChart;
 import org.echotrellis.plot.PhaseGraphDiagram;
 import org.echotrellis.sequence.Protocol;
@@ -50,6 +51,9 @@ public final class PathwaysCommand implements Callable<Integer> {
 
     @Spec
     CommandSpec spec;
+
+    @Mixin
+    ReportOption report;
 
     @Mixin
     ProtocolInput input;
@@ -108,6 +112,7 @@ public final class PathwaysCommand implements Callable<Integer> {
         Tissue t = p.tissue();
         double scale = p.b1Scale();
         checkOptions(p);
+        report.begin(spec, force);
         ClassDecomposition d = PathwayAnalysis.classes(p);
         TopPathways tp = null;
         if (echo != null) {
@@ -124,19 +129,30 @@ public final class PathwaysCommand implements Callable<Integer> {
         String conditions = String.format(Locale.ROOT, "T1 = %s ms, T2 = %s ms, B1 = %.2f", Tables.num(t.t1Ms()),
                 Tables.num(t.t2Ms()), scale);
         if (plot != null) {
-            ChartFiles.write(ClassContributionChart.create(p.name() + ": echo classes by longitudinal periods",
-                    conditions + "; bars projected on each echo's phase add up to |echo|", d), plot, 900, 560, force);
+            ChartFiles.write(classChart(p, d, conditions), plot, 900, 560, force);
         }
         if (diagram != null) {
-            int maxOrder = diagramMaxOrder == null ? 100_000 : diagramMaxOrder;
-            double until = diagramUntilMs == null ? Double.POSITIVE_INFINITY : diagramUntilMs;
-            PhaseGraph g = PathwayAnalysis.phaseGraph(p, diagramThreshold, maxOrder, until);
-            ChartFiles.write(PhaseGraphDiagram.create(p.name() + ": phase graph", conditions
-                    + "; states below " + diagramThreshold + " of M0 not drawn", g,
-                    diagramScale == LineScale.log ? PhaseGraphDiagram.Scale.LOG : PhaseGraphDiagram.Scale.LINEAR),
-                    diagram, 1000, 600, force);
+            ChartFiles.write(diagramChart(p, conditions), diagram, 1000, 600, force);
         }
+        TopPathways top = tp;
+        report.settings(CommandReports.acquisition(p));
+        report.write("pathways: " + p.name(), force, r -> CommandReports.pathways(r, PathwayReport.table(p, d, top),
+                classChart(p, d, conditions), diagramChart(p, conditions), conditions));
         return 0;
+    }
+
+    private static JFreeChart classChart(Protocol p, ClassDecomposition d, String conditions) {
+        return ClassContributionChart.create(p.name() + ": echo classes by longitudinal periods",
+                conditions + "; bars projected on each echo's phase add up to |echo|", d);
+    }
+
+    private JFreeChart diagramChart(Protocol p, String conditions) {
+        int maxOrder = diagramMaxOrder == null ? 100_000 : diagramMaxOrder;
+        double until = diagramUntilMs == null ? Double.POSITIVE_INFINITY : diagramUntilMs;
+        PhaseGraph g = PathwayAnalysis.phaseGraph(p, diagramThreshold, maxOrder, until);
+        return PhaseGraphDiagram.create(p.name() + ": phase graph", conditions
+                + "; states below " + diagramThreshold + " of M0 not drawn", g,
+                diagramScale == LineScale.log ? PhaseGraphDiagram.Scale.LOG : PhaseGraphDiagram.Scale.LINEAR);
     }
 
     private void checkOptions(Protocol p) {

@@ -55,6 +55,9 @@ public final class SimulateCommand implements Callable<Integer> {
     CommandSpec spec;
 
     @Mixin
+    ReportOption report;
+
+    @Mixin
     ProtocolInput input;
 
     @Option(names = "--format", paramLabel = "FMT", defaultValue = "table",
@@ -95,12 +98,17 @@ public final class SimulateCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         refuseIgnoredOptions();
+        report.begin(spec, force);
         Protocol p = input.load();
         Tissue t = p.tissue();
         double scale = p.b1Scale();
         PrintWriter o = spec.commandLine().getOut();
         if (!sweeps.isEmpty()) {
-            return sweep(p, o);
+            sweep(p, o);
+            report.settings(CommandReports.acquisition(p));
+            report.write("simulate sweep: " + p.name(), force, r -> r.section("Sweep").facts(Map.of("grid points",
+                    SweepGrid.parse(sweeps, t.t1Ms(), t.t2Ms(), scale).size(), "CSV", out == null ? "standard output" : out)));
+            return 0;
         }
         EchoTrain train = Simulator.simulate(p);
         switch (format) {
@@ -110,27 +118,36 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         o.flush();
         if (plot != null) {
-            EchoPlot ep = EchoPlot.create(p.name() + ": predicted echo train")
-                    .subtitle(String.format(Locale.ROOT, "T1 = %s ms, T2 = %s ms, B1 = %.2f; engine: %s",
-                            Tables.num(t.t1Ms()), Tables.num(t.t2Ms()), scale, p.cpmg().isPresent() ? "CPMG fast path" : "general"));
-            ep.train(tissueLabel(t) + String.format(Locale.ROOT, ", B1 %.2f", scale), train);
-            for (double extra : plotB1) {
-                ep.train(tissueLabel(t) + String.format(Locale.ROOT, ", B1 %.2f", extra),
-                        Simulator.simulate(p, t.t1Ms(), t.t2Ms(), CliChecks.b1("--plot-b1", extra)));
-            }
-            for (String spec : plotTissues) {
-                Tissue extra = TissueOption.parse(spec, "--plot-tissue");
-                ep.train(tissueLabel(extra) + String.format(Locale.ROOT, ", B1 %.2f", scale),
-                        Simulator.simulate(p, extra.t1Ms(), extra.t2Ms(), scale));
-            }
-            double[] times = train.timesMs();
-            double exc = p.cpmg().map(c -> Math.abs(Math.sin(Math.toRadians(c.excitationFlipDeg() * scale)))).orElse(1.0);
-            if (!Double.isInfinite(t.t2Ms()) && times.length > 0) {
-                ep.ideal(t.t2Ms(), exc, times[times.length - 1]);
-            }
-            ChartFiles.write(ep.build(), plot, 900, 560, force);
+            ChartFiles.write(echoChart(p, train), plot, 900, 560, force);
         }
+        report.settings(CommandReports.acquisition(p));
+        report.write("simulate: " + p.name(), force, r -> CommandReports.simulate(r, p, train, echoChart(p, train)));
         return 0;
+    }
+
+    /** The echo-train chart of --plot and of the report (extra B1 scales and tissues included). */
+    private org.jfree.chart.JFreeChart echoChart(Protocol p, EchoTrain train) {
+        Tissue t = p.tissue();
+        double scale = p.b1Scale();
+        EchoPlot ep = EchoPlot.create(p.name() + ": predicted echo train")
+                .subtitle(String.format(Locale.ROOT, "T1 = %s ms, T2 = %s ms, B1 = %.2f; engine: %s",
+                        Tables.num(t.t1Ms()), Tables.num(t.t2Ms()), scale, p.cpmg().isPresent() ? "CPMG fast path" : "general"));
+        ep.train(tissueLabel(t) + String.format(Locale.ROOT, ", B1 %.2f", scale), train);
+        for (double extra : plotB1) {
+            ep.train(tissueLabel(t) + String.format(Locale.ROOT, ", B1 %.2f", extra),
+                    Simulator.simulate(p, t.t1Ms(), t.t2Ms(), CliChecks.b1("--plot-b1", extra)));
+        }
+        for (String spec : plotTissues) {
+            Tissue extra = TissueOption.parse(spec, "--plot-tissue");
+            ep.train(tissueLabel(extra) + String.format(Locale.ROOT, ", B1 %.2f", scale),
+                    Simulator.simulate(p, extra.t1Ms(), extra.t2Ms(), scale));
+        }
+        double[] times = train.timesMs();
+        double exc = p.cpmg().map(c -> Math.abs(Math.sin(Math.toRadians(c.excitationFlipDeg() * scale)))).orElse(1.0);
+        if (!Double.isInfinite(t.t2Ms()) && times.length > 0) {
+            ep.ideal(t.t2Ms(), exc, times[times.length - 1]);
+        }
+        return ep.build();
     }
 
     /**

@@ -56,6 +56,9 @@ public final class SpectrumCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @Mixin
+    ReportOption report;
+
     @Parameters(index = "0", paramLabel = "DATA", description = "Decay table (.csv) or 4-D image (.nii, .nii.gz).")
     Path data;
 
@@ -127,6 +130,7 @@ public final class SpectrumCommand implements Callable<Integer> {
                 + ": not a CPMG echo train (constant echo spacing, refocusing phase = excitation phase ± 90°); "
                 + "spectrum fitting needs one"));
         SpectrumOptions options = options();
+        report.begin(spec, force);
         String name = data.getFileName() == null ? "" : data.getFileName().toString().toLowerCase(Locale.ROOT);
         boolean image = name.endsWith(".nii") || name.endsWith(".nii.gz");
         Checks.require(image || name.endsWith(".csv"),
@@ -139,13 +143,19 @@ public final class SpectrumCommand implements Callable<Integer> {
             Checks.require(out != null, "--out DIR is required for image input");
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
-            SpectrumVolumes.run(data, mask, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
+            var res = SpectrumVolumes.run(data, mask, analysis, n, out, force, CliChecks.outsideMaskValue(outsideMask), settings,
                     StderrProgressBar.onTerminal(spec.commandLine().getErr(), quiet), format == Format.json,
-                    spec.commandLine().getOut(), java.util.Arrays.asList(data, mask, protocol));
+                    spec.commandLine().getOut(), java.util.Arrays.asList(data, mask, protocol)).result();
+            report.settings(settings);
+            report.write("spectrum: " + data.getFileName(), force, r -> CommandReports.spectrumVolume(r, res, options));
         } else {
             Checks.require(mask == null, "--mask applies to image input only; DATA " + data + " is a table");
-            SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings, spec.commandLine().getOut(),
-                    List.of(data, protocol));
+            var fits = SpectrumTables.run(data, p, cache, options, format.name(), out, force, settings,
+                    spec.commandLine().getOut(), List.of(data, protocol));
+            report.settings(settings);
+            report.write("spectrum: " + data.getFileName(), force, r -> r.section("Spectra")
+                    .chart(SpectrumTables.plot(fits, options, data.getFileName().toString()), 900, 560, "T2 spectra of the decays")
+                    .preformatted("Table (as printed)", SpectrumTables.text(fits, options)));
         }
         return 0;
     }

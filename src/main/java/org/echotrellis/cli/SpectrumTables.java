@@ -30,7 +30,7 @@ import org.echotrellis.sequence.Protocol;
 final class SpectrumTables {
     private SpectrumTables() { }
 
-    static void run(Path data, Protocol p, BasisCache cache, SpectrumOptions o, String format, Path out,
+    static List<SpectrumFit> run(Path data, Protocol p, BasisCache cache, SpectrumOptions o, String format, Path out,
                     boolean force, Map<String, Object> settings, PrintWriter stdout, List<Path> inputs) throws Exception {
         DecayTable t = DecayTableReader.read(data);
         checkEchoes(t, p);
@@ -49,6 +49,7 @@ final class SpectrumTables {
                 set.commit();
             }
             print(fits, o, format, stdout);
+            return fits;
         }
     }
 

@@ -102,6 +102,9 @@ public final class CohortThroughput {
         if (code != 0) {
             System.out.println(String.join(" ", args) + " -> exit " + code + "\n" + err);
         }
+        if (args[0].equals("cohort")) {
+            System.out.print(out);   // the job's own figures: processing stage without the table writing
+        }
         return code;
     }
 

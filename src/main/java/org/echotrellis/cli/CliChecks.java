@@ -1,5 +1,6 @@
 package org.echotrellis.cli;
 
+import java.util.List;
 import java.util.Optional;
 
 import org.echotrellis.io.NiftiImage;
@@ -88,5 +89,52 @@ final class CliChecks {
             }
             throw new InputException(m, e);
         }
+    }
+
+    /**
+     * @param spec a running command
+     * @return the command line as typed, for provenance ({@code echotrellis SUBCOMMAND ARGS}); an
+     *         argument with spaces or quotes is quoted
+     */
+    static String commandLine(picocli.CommandLine.Model.CommandSpec spec) {
+        StringBuilder sb = new StringBuilder("echotrellis");
+        picocli.CommandLine.ParseResult pr = spec.root().commandLine().getParseResult();
+        List<String> args = pr == null ? List.of(spec.qualifiedName()) : pr.originalArgs();
+        for (String a : args) {
+            boolean quote = a.isEmpty() || a.chars().anyMatch(ch -> Character.isWhitespace(ch) || ch == '\'' || ch == '"');
+            sb.append(' ').append(quote ? "'" + a.replace("'", "'\\''") + "'" : a);
+        }
+        return sb.toString();
+    }
+
+    /**
+     * The provenance block of a command's JSON outputs: version, command line, SHA-256 of every
+     * input file, the protocol text.
+     *
+     * @param spec the running command
+     * @param protocol the protocol file (hashed and its text included), or null
+     * @param inputs the other input files (null entries skipped)
+     * @return the block
+     */
+    static java.util.Map<String, Object> provenance(picocli.CommandLine.Model.CommandSpec spec, java.nio.file.Path protocol,
+            java.nio.file.Path... inputs) {
+        List<java.nio.file.Path> files = new java.util.ArrayList<>();
+        files.add(protocol);
+        files.addAll(java.util.Arrays.asList(inputs));
+        String text = protocol == null ? null : org.echotrellis.sequence.ProtocolText.read(protocol).text();
+        return org.echotrellis.io.Provenance.of(commandLine(spec), files, text);
+    }
+
+    /**
+     * @param json a JSON output as a map
+     * @param spec the running command
+     * @param protocol its protocol file
+     * @return a copy with a {@code provenance} block appended
+     */
+    static java.util.Map<String, Object> withProvenance(java.util.Map<String, Object> json,
+            picocli.CommandLine.Model.CommandSpec spec, java.nio.file.Path protocol) {
+        java.util.Map<String, Object> m = new java.util.LinkedHashMap<>(json);
+        m.put("provenance", provenance(spec, protocol));
+        return m;
     }
 }

@@ -12,7 +12,6 @@ import org.echotrellis.cohort.CohortResult;
 import org.echotrellis.cohort.CohortSpark;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
 import org.echotrellis.fit.volume.FitOptions;
-import org.echotrellis.io.VolumeJob;
 import org.echotrellis.sequence.ProtocolText;
 
 /**
@@ -42,7 +41,7 @@ final class CohortCli {
             CohortRequest request = new CohortRequest(c.bidsDir, c.outputDir, c.participants,
                     analysis.equals("spectrum") ? null : fit, analysis.equals("fit") ? null : spectrum, protocol,
                     c.labels, c.force,
-                    taskCpus, VolumeJob.DEFAULT_SLAB_VALUES, "echotrellis " + String.join(" ",
+                    taskCpus, "echotrellis " + String.join(" ",
                             c.spec.commandLine().getParseResult().originalArgs()));
             CohortResult r = CohortJob.run(spark.session(), request, err);
             out.printf(Locale.ROOT, "cohort: %d processed, %d skipped (complete earlier), %d failed; %d table rows; "

@@ -231,7 +231,8 @@ public final class DesignCommand implements Callable<Integer> {
         }
         refuseOverLimits(report);
         PrintWriter o = spec.commandLine().getOut();
-        o.print(format == Format.json ? Json.write(report.toJson()) : DesignOutputs.table(report));
+        o.print(format == Format.json ? Json.write(CliChecks.withProvenance(report.toJson(), spec, protocol))
+                : DesignOutputs.table(report));
         o.flush();
         if (out != null) {
             String protocolName = name != null ? name : p.name() + "-designed";

@@ -172,7 +172,8 @@ public final class FitCommand implements Callable<Integer> {
             }
             double sigma = tableSigma();
             T2Fit.Factory f = new T2Fit.Factory(options.settings(train).withNoiseSigma(sigma), model, true);
-            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o, report);
+            new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o,
+                    CliChecks.provenance(spec, protocol, data), report);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -189,6 +190,7 @@ public final class FitCommand implements Callable<Integer> {
         info.put("b1_map_units", b1MapUnits.name());
         info.put("mask", mask == null ? null : mask.toString());
         info.put("threads", n);
+        info.put("provenance", CliChecks.provenance(spec, protocol, data, mask, b1Map));
         new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask), protocol)
                 .run(data, mask, b1Map, b1MapUnits, n, info, format == Format.json, o, spec.commandLine().getErr(), report);
         return 0;

@@ -50,7 +50,7 @@ final class FitTableRun {
         this.inputs = inputs;
     }
 
-    void run(Path csv, boolean json, PrintWriter o, ReportOption report) {
+    void run(Path csv, boolean json, PrintWriter o, Map<String, Object> provenance, ReportOption report) {
         DecayTable table = DecayTableReader.read(csv);
         CpmgTrain train = factory.settings().train();
         checkTimes(table, train);
@@ -89,6 +89,7 @@ final class FitTableRun {
         if (json) {
             Map<String, Object> root = new LinkedHashMap<>();
             root.put("fits", rows);
+            root.put("provenance", provenance);
             o.print(Json.write(root));
         } else {
             o.print(table(rows));

@@ -63,6 +63,7 @@ final class FitVolumeRun {
         try (OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile));
                 NiftiInput in = Nifti.open(data)) {
             NiftiHeader h = in.header();
+            org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             Optional<NiftiImage> mask = Optional.ofNullable(maskFile).map(Nifti::read);
             Optional<NiftiImage> b1 = Optional.ofNullable(b1File).map(Nifti::read)
                     .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);

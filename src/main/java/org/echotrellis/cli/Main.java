@@ -17,7 +17,7 @@ import picocli.CommandLine.Command;
         description = "Extended-phase-graph tools for multi-echo spin-echo MR: simulate echo trains, "
                 + "trace coherence pathways, fit T2 and B1, compute T2 spectra, design refocusing schedules "
                 + "and follow fast-spin-echo trains into the image.",
-        subcommands = {SimulateCommand.class, PathwaysCommand.class, FitCommand.class, SpectrumCommand.class,
+        subcommands = {SimulateCommand.class, PathwaysCommand.class, FitCommand.class, SpectrumCommand.class, BidsCommand.class,
             DesignCommand.class, ImageCommand.class, CohortCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
         footer = {"", "Example:", "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
             "      --b1 0.8 --plot knee.png",
@@ -198,12 +198,11 @@ public final class Main implements java.util.concurrent.Callable<Integer> {
         return s == null ? "" : s.split("\\R")[0].replaceAll("[\\p{Cc}\\p{Cf}]", "?");
     }
 
-    /** Version from the jar manifest, or "development". */
+    /** Version from the jar manifest ({@code Implementation-Version}), or "development" outside a jar. */
     static final class Version implements CommandLine.IVersionProvider {
         @Override
         public String[] getVersion() {
-            String v = Main.class.getPackage().getImplementationVersion();
-            return new String[] {"echotrellis " + (v == null ? "0.1.0-SNAPSHOT" : v)};
+            return new String[] {"echotrellis " + org.echotrellis.io.Provenance.version()};
         }
     }
 }

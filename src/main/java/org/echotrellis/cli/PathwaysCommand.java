@@ -121,7 +121,7 @@ public final class PathwaysCommand implements Callable<Integer> {
         }
         PrintWriter o = spec.commandLine().getOut();
         switch (format) {
-            case json -> o.print(Json.write(PathwayReport.json(p, d, tp)));
+            case json -> o.print(Json.write(CliChecks.withProvenance(PathwayReport.json(p, d, tp), spec, input.file)));
             case csv -> o.print(PathwayReport.csv(d, tp));
             default -> o.print(PathwayReport.table(p, d, tp));
         }

@@ -112,7 +112,7 @@ public final class SimulateCommand implements Callable<Integer> {
         }
         EchoTrain train = Simulator.simulate(p);
         switch (format) {
-            case json -> o.print(Json.write(json(p, train)));
+            case json -> o.print(Json.write(CliChecks.withProvenance(json(p, train), spec, input.file)));
             case csv -> o.print(Tables.echoCsv(train));
             default -> o.print(Tables.echoTable(p, train));
         }

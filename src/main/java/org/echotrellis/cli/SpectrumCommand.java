@@ -197,6 +197,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         s.put("protocol", protocol.toString());
         s.put("mask", mask == null ? null : mask.toString());
         s.putAll(analysis.describe());
+        s.put("provenance", CliChecks.provenance(spec, protocol, data, mask));
         return s;
     }
 }

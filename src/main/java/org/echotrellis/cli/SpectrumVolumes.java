@@ -51,6 +51,7 @@ final class SpectrumVolumes {
         try (OutputSet set = OutputSet.open(out, force, inputs); NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
             VolumeJob job = CliChecks.volumeJob(in, m, Optional.empty(), threads);
+            org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             set.plan(plannedFiles(analysis, o));
             VolumeMaps r = analysis.run(job, progress);
             Map<String, Object> s = write(r, o, out, force, outsideMask, settings);

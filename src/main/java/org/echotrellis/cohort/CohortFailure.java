@@ -8,8 +8,8 @@ import java.util.List;
  *
  * @param subject participant label (without {@code sub-})
  * @param session session label, empty if none
- * @param stage {@code read}, {@code labels}, {@code fit}, {@code spectrum}, {@code write} or
- *        {@code task} (the Spark task itself failed)
+ * @param stage {@code read} (collections, sidecars, protocol), {@code analysis} (reading the series,
+ *        fit/spectrum, writing the maps), {@code labels} or {@code write} (statistics, publishing)
  * @param message one line naming the file and the problem
  */
 public record CohortFailure(String subject, String session, String stage, String message) implements Serializable {

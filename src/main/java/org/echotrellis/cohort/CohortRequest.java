@@ -22,12 +22,11 @@ import org.echotrellis.sequence.ProtocolText;
  * @param labels {@code dseg}, a label-image pattern, or null for whole-mask rows
  * @param force redo units whose outputs exist
  * @param threadsPerTask worker threads of one task's volume pipeline (the cores a task holds)
- * @param slabValues doubles per slab buffer of the volume pipeline (two are held per task)
  * @param commandLine the command line, for the derivatives' provenance
  */
 public record CohortRequest(String bidsDir, String outputDir, List<String> participants, FitOptions fit,
                             SpectrumOptions spectrum, ProtocolText protocol, String labels, boolean force,
-                            int threadsPerTask, long slabValues, String commandLine) implements Serializable {
+                            int threadsPerTask, String commandLine) implements Serializable {
     private static final long serialVersionUID = 1L;
 
     /** Copies the list; checks that at least one analysis is requested. */
@@ -36,8 +35,8 @@ public record CohortRequest(String bidsDir, String outputDir, List<String> parti
         if (fit == null && spectrum == null) {
             throw new IllegalArgumentException("a cohort request needs fit or spectrum settings");
         }
-        if (threadsPerTask < 1 || slabValues < 1) {
-            throw new IllegalArgumentException("threadsPerTask and slabValues must be >= 1");
+        if (threadsPerTask < 1) {
+            throw new IllegalArgumentException("threadsPerTask must be >= 1");
         }
     }
 
@@ -52,6 +51,6 @@ public record CohortRequest(String bidsDir, String outputDir, List<String> parti
      * @param out the output directory
      */
     void prepareOutput(Path out) {
-        Derivatives.describe(out, commandLine);
+        UnitAnalyses.describe(out, commandLine);
     }
 }

@@ -13,7 +13,7 @@ import java.util.stream.Stream;
  * subject/session in its {@code anat/} directory (one whose name carries the collection's
  * {@code acq}/{@code run} entities if there are several); otherwise a pattern below the dataset root
  * with {@code {sub}} and {@code {ses}} placeholders. A unit without a label image is summarised over
- * its whole mask; the mask is the unit's {@code *_mask.nii[.gz]} in {@code anat/} when present.
+ * its whole mask.
  */
 final class LabelImages {
     /** The option value that selects BIDS segmentations. */

@@ -43,7 +43,12 @@ final class Storage {
      */
     static FileSystem fs(org.apache.hadoop.fs.Path p) {
         try {
-            return p.getFileSystem(new Configuration());
+            Configuration conf = new Configuration();
+            if (isLocal(p)) {
+                // the raw local file system: no .crc checksum files beside the outputs
+                return FileSystem.getLocal(conf).getRawFileSystem();
+            }
+            return p.getFileSystem(conf);
         } catch (IOException e) {
             throw new UncheckedIOException("cannot reach the file system of " + p + ": " + e.getMessage(), e);
         }

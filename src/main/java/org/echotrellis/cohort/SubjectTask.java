@@ -5,32 +5,22 @@ import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Map;
-import java.util.concurrent.ConcurrentHashMap;
 
 import org.apache.hadoop.fs.Path;
 import org.echotrellis.InputException;
-import org.echotrellis.fit.volume.VolumeAnalysis;
-import org.echotrellis.fit.volume.VolumeRequest;
 
 /**
  * The work of one subject/session on an executor: reads its multi-echo collections, runs the
  * requested analyses, writes the BIDS derivatives into a local scratch directory, summarises the
  * written maps per region, writes the unit's statistics file last, and publishes the directory to
- * the output dataset in one rename. Any failure becomes the unit's {@link CohortFailure}; the scratch
+ * the output dataset in one rename ({@link Storage#publish}). Any failure becomes the unit's {@link CohortFailure}; the scratch
  * directory is always removed.
  *
- * <p>Memory: the volume pipeline holds two slabs of the series (bounded by
- * {@link CohortRequest#slabValues()}) plus the float output maps of one analysis at a time; maps are
- * written and dropped before the next analysis starts. The analyses themselves (start dictionary,
- * basis cache) are built once per executor JVM and shared by its tasks, since they depend only on the
- * protocol and settings.
+ * <p>Memory: the echo files are joined into a temporary 4-D file slice by slice; the volume
+ * pipeline holds two slabs of that series plus the float output maps of one analysis at a time;
+ * maps are written and dropped before the next analysis starts.
  */
 final class SubjectTask {
-    /** Analyses built on this executor, by request; small (one per distinct protocol/settings). */
-    private static final Map<VolumeRequest, VolumeAnalysis> ANALYSES = new ConcurrentHashMap<>();
-    private static final int MAX_CACHED = 16;
-
     private SubjectTask() { }
 
     /**
@@ -49,8 +39,7 @@ final class SubjectTask {
             Path outRoot = Storage.path(request.outputDir());
             java.nio.file.Path root = UnitAnalyses.localDataset(request, unit, scratch.resolve("in"));
             java.nio.file.Path out = scratch.resolve("out");
-            java.nio.file.Path unitDir = out.resolve(unit.relativeDir());
-            Files.createDirectories(unitDir);
+            java.nio.file.Path unitDir = Files.createDirectories(out.resolve(unit.relativeDir()));
             List<CohortRow> rows = new ArrayList<>();
             long voxels = UnitAnalyses.process(request, unit, root, out, stage, rows);
             stage[0] = "write";
@@ -72,24 +61,6 @@ final class SubjectTask {
         } finally {
             Storage.deleteLocal(scratch);
         }
-    }
-
-    /**
-     * The analysis of a request, built once per executor.
-     *
-     * @param request the serialisable request
-     * @return the analysis (thread-safe, shared)
-     */
-    static VolumeAnalysis analysis(VolumeRequest request) {
-        VolumeAnalysis a = ANALYSES.get(request);
-        if (a == null) {
-            if (ANALYSES.size() >= MAX_CACHED) {
-                ANALYSES.clear();
-            }
-            a = request.analysis();
-            ANALYSES.put(request, a);
-        }
-        return a;
     }
 
     /**

@@ -3,29 +3,34 @@ package org.echotrellis.cohort;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
+import java.util.OptionalDouble;
 
+import com.fasterxml.jackson.databind.JsonNode;
 import org.echotrellis.InputException;
-import org.echotrellis.fit.volume.VolumeMaps;
-import org.echotrellis.fit.volume.VolumeRequest;
-import org.echotrellis.io.EchoSeries;
+import org.echotrellis.fit.volume.BidsDerivatives;
+import org.echotrellis.io.Json;
 import org.echotrellis.io.Nifti;
-import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
-import org.echotrellis.io.NiftiInput;
 import org.echotrellis.io.ProgressReporter;
-import org.echotrellis.io.VolumeJob;
-import org.echotrellis.sequence.ProtocolText;
+import org.echotrellis.io.RegionStatistics;
+import org.echotrellis.io.VoxelStatus;
+import org.echotrellis.io.bids.BidsLayout;
+import org.echotrellis.io.bids.BidsProtocol;
+import org.echotrellis.io.bids.MeseCollection;
 
 /**
- * The analyses of one subject/session on its executor: every multi-echo collection is joined into a
- * 4-D series in the task's scratch directory (one echo volume in memory at a time), run through the
- * requested analyses with the unit's mask when present, and written as derivatives; the written maps
- * are summarised per label.
+ * The analyses of one subject/session on its executor: the unit's multi-echo collections
+ * ({@link BidsLayout}), their protocols ({@link BidsProtocol}), the fit and/or spectrum with the
+ * derivatives written by {@link BidsDerivatives} into the task's scratch directory, and the written
+ * maps summarised per label.
  */
 final class UnitAnalyses {
+    /** Status map of the fit and of the spectrum, by the map suffixes they qualify. */
+    private static final String FIT_STATUS = "_desc-fitstatus_dseg";
+    private static final String SPECTRUM_STATUS = "_desc-spectrumstatus_dseg";
+
     private UnitAnalyses() { }
 
     /**
@@ -42,24 +47,20 @@ final class UnitAnalyses {
         if (Storage.isLocal(root)) {
             return Storage.local(root);
         }
-        Files.createDirectories(stage);
-        org.apache.hadoop.fs.Path dir = root;
-        Path local = stage;
-        for (String part : ("sub-" + unit.subject() + (unit.session().isEmpty() ? "" : "/ses-" + unit.session()))
-                .split("/")) {
-            Storage.fetchSidecars(dir, local);
-            dir = new org.apache.hadoop.fs.Path(dir, part);
-            local = local.resolve(part);
-            Files.createDirectories(local);
+        Path sub = Files.createDirectories(stage.resolve("sub-" + unit.subject()));
+        Storage.fetchSidecars(root, stage);
+        org.apache.hadoop.fs.Path subDir = new org.apache.hadoop.fs.Path(root, "sub-" + unit.subject());
+        if (unit.session().isEmpty()) {
+            Storage.fetch(subDir, stage);
+        } else {
+            Storage.fetchSidecars(subDir, sub);
+            Storage.fetch(new org.apache.hadoop.fs.Path(subDir, "ses-" + unit.session()), sub);
         }
-        Storage.fetch(new org.apache.hadoop.fs.Path(dir, "anat"), local);
         if (request.labels() != null && !request.labels().equals(LabelImages.DSEG)) {
             String rel = request.labels().replace("{sub}", unit.subject()).replace("{ses}", unit.session());
             org.apache.hadoop.fs.Path l = new org.apache.hadoop.fs.Path(root, rel);
             if (Storage.exists(l)) {
-                Path into = stage.resolve(rel).getParent();
-                Files.createDirectories(into);
-                Storage.fetch(l, into);
+                Storage.fetch(l, Files.createDirectories(stage.resolve(rel).getParent()));
             }
         }
         return stage;
@@ -74,64 +75,111 @@ final class UnitAnalyses {
      * @param out the local derivatives root
      * @param stage the current stage, updated for failure reports
      * @param rows receives the table rows
-     * @return voxels processed
+     * @return voxels processed (inside the mask, summed over analyses)
      */
     static long process(CohortRequest request, SubjectUnit unit, Path root, Path out, String[] stage,
-            List<CohortRow> rows) throws IOException {
-        Path anatOut = Files.createDirectories(out.resolve(unit.relativeDir()).resolve("anat"));
+            List<CohortRow> rows) {
+        List<MeseCollection> cs = BidsLayout.find(root, List.of(unit.subject()),
+                unit.session().isEmpty() ? List.of() : List.of(unit.session())).stream()
+                .filter(c -> c.session().orElse("").equals(unit.session())).toList();
+        if (cs.isEmpty()) {
+            throw new InputException(root.resolve(unit.relativeDir()).resolve("anat")
+                    + ": no " + unit.prefix() + "*_echo-<n>_MESE.nii[.gz] files");
+        }
+        BidsDerivatives.Settings settings = new BidsDerivatives.Settings(Optional.ofNullable(request.fit()),
+                Optional.ofNullable(request.spectrum()), Optional.empty(), 1.0, request.threadsPerTask(), false,
+                request.commandLine());
         long voxels = 0;
-        for (MeseCollection c : MeseCollection.find(root, unit)) {
+        for (MeseCollection c : cs) {
             stage[0] = "read";
-            ProtocolText protocol = SidecarProtocol.of(c, request.protocol());
-            Path series = out.getParent().resolve(c.entities() + "_series.nii");
-            NiftiHeader grid = EchoSeries.join(c.echoFiles(), series);
-            List<String> sources = new ArrayList<>();
-            for (Path f : c.echoFiles()) {
-                sources.add("bids:raw:" + root.relativize(f).toString().replace('\\', '/'));
-            }
-            Optional<NiftiImage> mask = LabelImages.beside(root, unit, c.entities(), "mask").map(p -> onGrid(p, grid));
+            BidsProtocol.Resolved p = BidsProtocol.resolve(c, Optional.ofNullable(request.protocol()),
+                    OptionalDouble.empty(), "--protocol");
+            stage[0] = "analysis";
+            List<Path> files = BidsDerivatives.run(root, c, p.protocol(), p.acquisition(), settings, out,
+                    ProgressReporter.NONE);
             stage[0] = "labels";
-            float[] labels = LabelImages.find(request.labels(), root, unit, c.entities())
-                    .map(p -> floats(onGrid(p, grid))).orElse(null);
-            List<VolumeRequest> requests = new ArrayList<>();
-            if (request.fit() != null) {
-                requests.add(VolumeRequest.fit(protocol, request.fit()));
-            }
-            if (request.spectrum() != null) {
-                requests.add(VolumeRequest.spectrum(protocol, request.spectrum()));
-            }
-            for (VolumeRequest r : requests) {
-                stage[0] = r.kind().name().toLowerCase(java.util.Locale.ROOT);
-                VolumeMaps maps;
-                try (NiftiInput in = Nifti.open(series)) {
-                    VolumeJob job = new VolumeJob(in, mask, Optional.empty(), request.threadsPerTask(),
-                            request.slabValues());
-                    maps = SubjectTask.analysis(r).run(job, ProgressReporter.NONE);
+            Optional<Path> labelFile = LabelImages.find(request.labels(), root, unit, c.prefix());
+            float[] labels = labelFile.map(UnitAnalyses::floats).orElse(null);
+            String labelSource = labelFile.map(Path::toString).orElse("");
+            for (String status : List.of(FIT_STATUS, SPECTRUM_STATUS)) {
+                Path sf = out.resolve(c.relativeDir()).resolve(c.prefix() + status + ".nii.gz");
+                if (!files.contains(sf)) {
+                    continue;
                 }
-                voxels += maps.result().processed();
-                stage[0] = "write";
-                rows.addAll(Derivatives.write(anatOut, c, unit, maps, labels, sources));
+                byte[] codes = codes(Nifti.read(sf));
+                for (byte b : codes) {
+                    voxels += b != VoxelStatus.OUTSIDE_MASK.code() ? 1 : 0;
+                }
+                for (Path f : files) {
+                    String name = f.getFileName().toString();
+                    if (!name.endsWith(".nii.gz") || name.endsWith("_dseg.nii.gz")
+                            || (name.endsWith("_MWFmap.nii.gz") != status.equals(SPECTRUM_STATUS))) {
+                        continue;
+                    }
+                    String stem = name.substring(0, name.length() - ".nii.gz".length());
+                    String map = stem.substring(c.prefix().length() + 1);
+                    String units = units(f.resolveSibling(stem + ".json"));
+                    float[] v = floats(f);
+                    for (RegionStatistics s : RegionStatistics.perRegion(v, codes, labels, labelSource)) {
+                        rows.add(new CohortRow(unit.subject(), unit.session(), c.entities().getOrDefault("acq", ""),
+                                c.entities().getOrDefault("run", ""), map, units, s));
+                    }
+                }
             }
-            Files.deleteIfExists(series);
         }
         return voxels;
     }
 
-    private static NiftiImage onGrid(Path file, NiftiHeader grid) {
-        NiftiImage img = Nifti.read(file);
-        NiftiHeader h = img.header();
-        if (h.volumes() != 1 || h.size(1) != grid.size(1) || h.size(2) != grid.size(2) || h.size(3) != grid.size(3)) {
-            throw new InputException(file + ": shape " + h.size(1) + "x" + h.size(2) + "x" + h.size(3) + "x" + h.volumes()
-                    + " is not the 3-D grid " + grid.size(1) + "x" + grid.size(2) + "x" + grid.size(3) + " of the series");
+    private static String units(Path sidecar) {
+        try {
+            JsonNode n = Json.MAPPER.readTree(sidecar.toFile());
+            return n.path("Units").asText("");
+        } catch (IOException e) {
+            throw new InputException(sidecar + ": cannot read (" + e.getMessage() + ")", e);
         }
-        return img;
     }
 
-    private static float[] floats(NiftiImage img) {
+    private static byte[] codes(NiftiImage img) {
+        byte[] b = new byte[img.size()];
+        for (int i = 0; i < b.length; i++) {
+            b[i] = (byte) img.get(i);
+        }
+        return b;
+    }
+
+    private static float[] floats(Path file) {
+        NiftiImage img = Nifti.read(file);
+        if (img.header().volumes() != 1) {
+            throw new InputException(file + ": " + img.header().volumes() + " volumes; a 3-D image is expected");
+        }
         float[] f = new float[img.size()];
         for (int i = 0; i < f.length; i++) {
             f[i] = (float) img.get(i);
         }
         return f;
+    }
+
+    /**
+     * Writes {@code dataset_description.json} of the derivatives dataset ({@link BidsDerivatives})
+     * if it does not exist.
+     *
+     * @param out the output directory
+     * @param commandLine the command line
+     */
+    static void describe(org.apache.hadoop.fs.Path out, String commandLine) {
+        org.apache.hadoop.fs.Path f = new org.apache.hadoop.fs.Path(out, "dataset_description.json");
+        if (Storage.exists(f)) {
+            return;
+        }
+        Path tmp = null;
+        try {
+            tmp = Files.createTempDirectory("echotrellis-cohort-");
+            String text = Files.readString(BidsDerivatives.writeDescription(tmp, commandLine, false));
+            Storage.writeText(f, text);
+        } catch (IOException e) {
+            throw new java.io.UncheckedIOException("cannot write " + f + ": " + e.getMessage(), e);
+        } finally {
+            Storage.deleteLocal(tmp);
+        }
     }
 }

@@ -19,9 +19,12 @@ public final class Simulator {
     private static final ThreadLocal<GeneralEngine> GENERAL = ThreadLocal.withInitial(() -> new GeneralEngine(1));
 
     private static final int CACHED_MODELS = 8;
-    private static final java.util.Map<Protocol, AcquisitionModel> MODELS = new java.util.LinkedHashMap<>(16, 0.75f, true) {
+    /** What a model depends on: the train, its acquisition and the tissue's diffusivity (not T1, T2, B1). */
+    private record ModelKey(Optional<CpmgTrain> train, Acquisition acquisition, double diffusivityMm2PerS) { }
+
+    private static final java.util.Map<ModelKey, AcquisitionModel> MODELS = new java.util.LinkedHashMap<>(16, 0.75f, true) {
         @Override
-        protected boolean removeEldestEntry(java.util.Map.Entry<Protocol, AcquisitionModel> e) {
+        protected boolean removeEldestEntry(java.util.Map.Entry<ModelKey, AcquisitionModel> e) {
             return size() > CACHED_MODELS;
         }
     };
@@ -29,22 +32,25 @@ public final class Simulator {
     private Simulator() { }
 
     /**
-     * The acquisition model of a protocol for B1 up to {@code b1}, built once and cached.
+     * The acquisition model of a protocol for B1 up to {@code b1}, built once and cached (keyed by the
+     * train, the acquisition and the tissue's diffusivity, so copies with another T1 or T2 share it).
+     * For many evaluations keep the returned model and call its {@code echoes} or {@code magnitudes}.
      *
      * @param p protocol (shorthand train form)
      * @param b1 largest B1 scale needed
      * @return the model
      */
     public static AcquisitionModel model(Protocol p, double b1) {
+        ModelKey key = new ModelKey(p.train(), p.acquisition(), p.tissue().diffusivityMm2PerS());
         synchronized (MODELS) {
-            AcquisitionModel m = MODELS.get(p);
+            AcquisitionModel m = MODELS.get(key);
             if (m != null && m.b1Max() >= b1) {
                 return m;
             }
         }
         AcquisitionModel m = AcquisitionModel.of(p, Math.max(2.0, 1.25 * b1));
         synchronized (MODELS) {
-            MODELS.put(p, m);
+            MODELS.put(key, m);
         }
         return m;
     }

@@ -77,7 +77,7 @@ class CohortCommandTest {
 
         List<List<String>> fails = CsvText.parse(Files.readString(out.resolve("cohort-failures.csv")));
         assertEquals(2, fails.size(), fails.toString());
-        assertEquals(List.of("04", "", "read"), fails.get(1).subList(0, 3));
+        assertEquals(List.of("04", "", "analysis"), fails.get(1).subList(0, 3));
         assertTrue(fails.get(1).get(3).contains("sub-04_echo-3_MESE.nii.gz"), fails.get(1).get(3));
         assertFalse(Files.exists(out.resolve("sub-04")), "a failed subject publishes nothing");
 

@@ -1,0 +1,188 @@
+package org.echotrellis.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.concurrent.Callable;
+
+import org.echotrellis.InputException;
+import org.echotrellis.fit.FitModel;
+import org.echotrellis.fit.spectrum.FractionWindow;
+import org.echotrellis.fit.spectrum.SpectrumOptions;
+import org.echotrellis.fit.spectrum.T2Grid;
+import org.echotrellis.fit.volume.BidsDerivatives;
+import org.echotrellis.fit.volume.FitOptions;
+import org.echotrellis.io.bids.BidsLayout;
+import org.echotrellis.io.bids.BidsProtocol;
+import org.echotrellis.io.bids.MeseCollection;
+import org.echotrellis.sequence.Protocol;
+import org.echotrellis.sequence.ProtocolText;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code bids}: T2 maps of every multi-echo spin-echo collection of a BIDS dataset, as a BIDS derivatives dataset. */
+@Command(name = "bids", mixinStandardHelpOptions = true,
+        description = {"Fit every multi-echo spin-echo collection (sub-<L>/[ses-<S>/]anat/*_echo-<n>_MESE.nii[.gz] "
+                + "with JSON sidecars) of a BIDS dataset and write a BIDS derivatives dataset: _T2map (seconds), "
+                + "_M0map, _desc-epgfit_TB1map (percent), _MWFmap (percent, spectrum), status maps, a JSON sidecar "
+                + "per map and a summary per collection.",
+            "Echo times, repetition time and flip angles come from the sidecars (EchoTime, RepetitionTime, FlipAngle, "
+                + "RefocusingFlipAngle); --protocol supplies the rest. A B1 map is taken from fmap/ (_TB1map, percent)."},
+        footer = {"", "Examples:",
+            "  echotrellis bids /data/study /data/study/derivatives/echotrellis participant \\",
+            "      --participant-label 01 02 --analysis both --protocol sequences/brain-mwi-32.yaml",
+            "  echotrellis bids study out participant --refocusing-flip-deg 160",
+            "",
+            "A collection that fails is reported on stderr and the others go on; the exit code is 2",
+            "when any collection failed.", "", "Research tool, not a medical device."})
+public final class BidsCommand implements Callable<Integer> {
+    @Mixin
+    CommonOptions common;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "BIDS_DIR", description = "Root of the BIDS dataset.")
+    Path bidsDir;
+
+    @Parameters(index = "1", paramLabel = "OUTPUT_DIR", description = "Root of the derivatives dataset written.")
+    Path outDir;
+
+    @Parameters(index = "2", paramLabel = "participant", description = "Analysis level: participant.")
+    String level;
+
+    @Option(names = "--participant-label", arity = "1..*", paramLabel = "L", description = "Participants to process (default: all).")
+    List<String> participants = new ArrayList<>();
+
+    @Option(names = "--session-label", arity = "1..*", paramLabel = "S", description = "Sessions to process (default: all).")
+    List<String> sessions = new ArrayList<>();
+
+    @Option(names = "--analysis", paramLabel = "A", defaultValue = "fit",
+            description = "fit (T2map, M0map, TB1map), spectrum (MWFmap) or both (default: ${DEFAULT-VALUE}).")
+    Analysis analysis;
+
+    @Option(names = "--protocol", paramLabel = "FILE", description = "Protocol file for what sidecars cannot give (pulses, slice, crushers, tissue).")
+    Path protocol;
+
+    @Option(names = "--refocusing-flip-deg", paramLabel = "DEG", description = "Refocusing flip when no sidecar has RefocusingFlipAngle.")
+    Double refocusDeg;
+
+    @Option(names = "--b1-map", paramLabel = "FILE", description = "B1 map for every collection instead of fmap/ (same grid).")
+    Path b1Map;
+
+    @Option(names = "--b1-map-units", paramLabel = "U", defaultValue = "percent",
+            description = "Values of --b1-map: percent (100 = nominal) or scale (default: ${DEFAULT-VALUE}).")
+    FitCommand.B1Units b1Units;
+
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "epg", description = "epg or mono (default: ${DEFAULT-VALUE}).")
+    FitModel model;
+
+    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "1000", description = "Fixed T1 in ms (default: ${DEFAULT-VALUE}).")
+    double t1Ms;
+
+    @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound of the fit (default: ${DEFAULT-VALUE}).")
+    double t2MinMs;
+
+    @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "5000", description = "Upper T2 bound of the fit (default: ${DEFAULT-VALUE}).")
+    double t2MaxMs;
+
+    @Option(names = "--t2-bins", paramLabel = "N", defaultValue = "40", description = "Spectrum: log-spaced T2 bins, 10-2000 ms (default: ${DEFAULT-VALUE}).")
+    int t2Bins;
+
+    @Option(names = "--fraction-window-ms", paramLabel = "LO:HI", defaultValue = "10:40",
+            description = "Spectrum: T2 window of the MWFmap (default: ${DEFAULT-VALUE}).")
+    String window;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
+    Integer threads;
+
+    @Option(names = "--force", description = "Overwrite existing output files.")
+    boolean force;
+
+    @Option(names = "--quiet", description = "No progress bar.")
+    boolean quiet;
+
+    /** What to compute. */
+    enum Analysis { fit, spectrum, both }
+
+    @Override
+    public Integer call() {
+        if (!level.equals("participant")) {
+            throw new InputException("analysis level must be participant, got " + level);
+        }
+        if (Files.exists(outDir) && !Files.isDirectory(outDir)) {
+            throw new InputException("OUTPUT_DIR " + outDir + " exists and is not a directory");
+        }
+        if (bidsDir.toAbsolutePath().normalize().equals(outDir.toAbsolutePath().normalize())) {
+            throw new InputException("OUTPUT_DIR must differ from BIDS_DIR " + bidsDir + " (inputs are never modified)");
+        }
+        Optional<ProtocolText> text = Optional.ofNullable(protocol).map(ProtocolText::read);
+        text.ifPresent(ProtocolText::parse);
+        Optional<FitOptions> fit = analysis == Analysis.spectrum ? Optional.empty()
+                : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(t1Ms)
+                        .withT2BoundsMs(t2MinMs, t2MaxMs)));
+        Optional<SpectrumOptions> spectrum = analysis == Analysis.fit ? Optional.empty()
+                : Optional.of(SpectrumOptions.DEFAULT.withGrid(new T2Grid(10, 2000, t2Bins)).withT1Ms(t1Ms)
+                        .withWindows(List.of(FractionWindow.parse(window))));
+        int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
+        List<MeseCollection> found = BidsLayout.find(bidsDir, participants, sessions);
+        PrintWriter out = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        if (found.isEmpty()) {
+            throw new InputException(bidsDir + ": no *_echo-<n>_MESE.nii[.gz] files under sub-*/[ses-*/]anat/"
+                    + (participants.isEmpty() ? "" : " for participants " + participants));
+        }
+        String command = CliChecks.commandLine(spec);
+        BidsDerivatives.Settings settings = new BidsDerivatives.Settings(fit, spectrum, Optional.ofNullable(b1Map),
+                b1Units == FitCommand.B1Units.percent ? 0.01 : 1, n, force, command);
+        BidsDerivatives.writeDescription(outDir, command, true);
+        int failed = 0;
+        for (MeseCollection c : found) {
+            try {
+                BidsProtocol.Resolved r = BidsProtocol.resolve(c, text,
+                        refocusDeg == null ? OptionalDouble.empty() : OptionalDouble.of(refocusDeg), "--refocusing-flip-deg");
+                Protocol p = r.protocol().parse();
+                checkEventList(c, p, r);
+                List<Path> files = BidsDerivatives.run(bidsDir, c, r.protocol(), r.acquisition(), settings, outDir,
+                        new StderrProgressBar(err, quiet));
+                out.printf(Locale.ROOT, "%s: %d files in %s%n", c.label(), files.size(), outDir.resolve(c.relativeDir()));
+            } catch (InputException e) {
+                failed++;
+                err.println("echotrellis: " + c.label() + ": " + e.getMessage().split("\\R")[0]);
+            }
+            out.flush();
+        }
+        out.printf(Locale.ROOT, "bids: %d of %d collections done%s%n", found.size() - failed, found.size(),
+                failed > 0 ? ", " + failed + " failed" : "");
+        out.flush();
+        err.flush();
+        return failed > 0 ? 2 : 0;
+    }
+
+    /** An event-list protocol keeps its own timing: its echo times must be the sidecars'. */
+    private static void checkEventList(MeseCollection c, Protocol p, BidsProtocol.Resolved r) {
+        if (p.train().isPresent()) {
+            return;
+        }
+        double[] te = p.echoTimesMs();
+        @SuppressWarnings("unchecked")
+        List<Double> side = (List<Double>) r.acquisition().get("EchoTime");
+        boolean same = te.length == side.size();
+        for (int i = 0; same && i < te.length; i++) {
+            same = Math.abs(te[i] - side.get(i) * 1000) <= 1e-3 * te[i];
+        }
+        if (!same) {
+            throw new InputException(c.label() + ": sidecar EchoTime " + side + " s differs from the echo times of "
+                    + p.source() + " " + java.util.Arrays.toString(te) + " ms");
+        }
+    }
+}

@@ -37,9 +37,12 @@ import picocli.CommandLine.Spec;
             "Echo times, repetition time and flip angles come from the sidecars (EchoTime, RepetitionTime, FlipAngle, "
                 + "RefocusingFlipAngle); --protocol supplies the rest. A B1 map is taken from fmap/ (_TB1map, percent)."},
         footer = {"", "Examples:",
-            "  echotrellis bids /data/study /data/study/derivatives/echotrellis participant \\",
-            "      --participant-label 01 02 --analysis both --protocol sequences/brain-mwi-32.yaml",
-            "  echotrellis bids study out participant --refocusing-flip-deg 160",
+            "  java -jar target/echotrellis.jar bids /data/study \\",
+            "      /data/study/derivatives/echotrellis participant \\",
+            "      --participant-label 01 02 --analysis both \\",
+            "      --protocol sequences/brain-mwi-32.yaml",
+            "  java -jar target/echotrellis.jar bids study out participant \\",
+            "      --refocusing-flip-deg 160",
             "",
             "A collection that fails is reported on stderr and the others go on; the exit code is 2",
             "when any collection failed.", "", "Research tool, not a medical device."})

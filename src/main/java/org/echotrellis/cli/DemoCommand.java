@@ -16,7 +16,8 @@ import picocli.CommandLine.Spec;
 /** {@code demo}: runs the built-in scenarios end to end and writes their figures and a summary. */
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = "Run the built-in scenarios (invented protocols and tissues) and write plots and summary.md.",
-        footer = {"", "Example:", "  echotrellis demo --out plots"})
+        footer = {"", "Example:", "  java -jar target/echotrellis.jar demo --out plots",
+            "", "Prints a short report with run times; the findings go to DIR/summary.md."})
 public final class DemoCommand implements Callable<Integer> {
     /** The demo's parts, in order. */
     static final List<DemoSection> SECTIONS = List.of(
@@ -66,20 +67,35 @@ public final class DemoCommand implements Callable<Integer> {
     private void run(OutputSet set) throws Exception {
         StringBuilder summary = new StringBuilder("# echotrellis demo summary\n\n"
                 + "All protocols, tissues and phantoms here are invented scenarios for demonstration.\n\n");
-        DemoContext ctx = new DemoContext(out, true, summary, spec.commandLine().getErr(), quiet);
+        java.util.List<String> log = new java.util.ArrayList<>();
+        DemoContext ctx = new DemoContext(out, true, summary, spec.commandLine().getErr(), quiet, log);
+        java.io.PrintWriter o = spec.commandLine().getOut();
+        long start = System.nanoTime();
         for (DemoSection s : SECTIONS) {
             if (!quiet) {
                 ctx.err().println("demo: " + s.title() + " ...");
                 ctx.err().flush();
             }
+            long t0 = System.nanoTime();
+            int notes = log.size();
             s.run(ctx);
+            log.add(notes, String.format(java.util.Locale.ROOT, "%5.1f s  %s", (System.nanoTime() - t0) * 1e-9, s.title()));
+            for (int i = notes + 1; i < log.size(); i++) {
+                log.set(i, "         " + log.get(i));
+            }
         }
         AtomicFiles.writeString(out.resolve("summary.md"), summary.toString(), force);
         set.commit();
-        spec.commandLine().getOut().print(summary);
-        spec.commandLine().getOut().flush();
-        if (!quiet) {
-            ctx.err().println("demo: wrote " + out.resolve("summary.md"));
+        long figures;
+        try (java.util.stream.Stream<Path> files = Files.list(out)) {
+            figures = files.filter(f -> f.getFileName().toString().endsWith(".png")).count();
         }
+        o.println("echotrellis demo: invented scenarios, all figures as PNG and SVG");
+        for (String line : log) {
+            o.println("  " + line);
+        }
+        o.printf(java.util.Locale.ROOT, "wrote %d figures (.png and .svg) and %s in %.1f s; the findings are in summary.md%n",
+                figures, out.resolve("summary.md"), (System.nanoTime() - start) * 1e-9);
+        o.flush();
     }
 }

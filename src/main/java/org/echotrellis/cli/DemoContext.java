@@ -13,8 +13,16 @@ import java.nio.file.Path;
  * @param summary markdown summary; sections append a heading and their findings
  * @param err console for progress messages
  * @param quiet whether to suppress progress output
+ * @param runLog lines for the console only (run times and other figures that change from run to
+ *     run, which must stay out of the committed summary)
  */
-public record DemoContext(Path outDir, boolean force, StringBuilder summary, PrintWriter err, boolean quiet) {
+public record DemoContext(Path outDir, boolean force, StringBuilder summary, PrintWriter err, boolean quiet,
+        java.util.List<String> runLog) {
+
+    /** Adds a line to the console report (never to summary.md). */
+    public void log(String line) {
+        runLog.add(line);
+    }
 
     /** @return the path of a file in the demo directory */
     public Path file(String name) {

@@ -45,14 +45,19 @@ import picocli.CommandLine.Spec;
             "  psf:ECHO:LINES[:TISSUE[:MIN_SIGNAL[:MAX_SIDELOBE]]] (value 1/FWHM),",
             "  cnr:ECHO:LINES:MAX_FWHM_PX:TISSUE_A[:TISSUE_B]",
             "", "Examples:",
-            "  echotrellis design --protocol sequences/fse-variable-1p5t.yaml \\",
+            "  java -jar target/echotrellis.jar design \\",
+            "      --protocol sequences/fse-variable-1p5t.yaml \\",
             "      --target constant:0.4 --out fse-design",
-            "  echotrellis design --protocol sequences/brain-fse-80-3t.yaml \\",
+            "  java -jar target/echotrellis.jar design \\",
+            "      --protocol sequences/brain-fse-80-3t.yaml \\",
             "      --objective min:20:80 --sar-budget 0.5 --tr-ms 4000 --slices 12",
             "", "Estimates only: the scanner's SAR monitor, local rules and the MR physicist decide."})
 public final class DesignCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
+
+    @Mixin
+    PlotOptions plotOptions;
 
     @Spec
     CommandSpec spec;
@@ -157,6 +162,11 @@ public final class DesignCommand implements Callable<Integer> {
             description = "Standard output: table or json (default: ${DEFAULT-VALUE}).")
     Format format;
 
+    @Option(names = "--keep-over-limits",
+            description = "Report and write a schedule that exceeds the SAR budget or B1+rms limit (otherwise exit 2 "
+                    + "naming the largest target factor reachable within them).")
+    boolean keepOverLimits;
+
     @Option(names = "--force", description = "Overwrite existing output files.")
     boolean force;
 
@@ -221,6 +231,7 @@ public final class DesignCommand implements Callable<Integer> {
             report = DesignJob.optimised(problem, objective, rf, limits, reference, knots, maxEvaluations, compare,
                     org.echotrellis.design.AcquiredEchoes.forProtocol(p));
         }
+        refuseOverLimits(report);
         PrintWriter o = spec.commandLine().getOut();
         o.print(format == Format.json ? Json.write(CliChecks.withProvenance(report.toJson(), spec, protocol))
                 : DesignOutputs.table(report));
@@ -237,6 +248,25 @@ public final class DesignCommand implements Callable<Integer> {
         htmlReport.settings(CommandReports.acquisition(p));
         htmlReport.write("design: " + p.name(), force, r -> CommandReports.design(r, report));
         return 0;
+    }
+
+    /** A schedule over the limits is an error unless --keep-over-limits asks for it. */
+    private void refuseOverLimits(DesignReport r) {
+        if (r.exposure().withinLimits() || keepOverLimits) {
+            return;
+        }
+        ExposureLimits l = r.exposure().limits();
+        String limitsText = String.format(java.util.Locale.ROOT, "relative SAR %.4f (budget %s)%s",
+                r.exposure().relativeSar(), DesignOutputs.g(l.sarBudget()), Double.isNaN(r.exposure().b1rmsUt()) ? ""
+                        : String.format(java.util.Locale.ROOT, ", B1+rms %.3f µT (limit %s)", r.exposure().b1rmsUt(),
+                        l.hasB1rmsLimit() ? DesignOutputs.g(l.b1rmsLimitUt()) + " µT" : "none"));
+        String reachable = r.mode().equals("target")
+                ? Double.isNaN(r.budgetScale()) ? "no scaled copy of the target down to 0.02 is reachable within them"
+                : String.format(java.util.Locale.ROOT, "the largest factor of the target reachable within them is %.4f",
+                        r.budgetScale())
+                : "no schedule in the flip bounds meets them";
+        throw new InputException("design " + r.mode() + " " + r.spec() + ": the schedule exceeds the limits, "
+                + limitsText + "; " + reachable + " (give --keep-over-limits to report and write it anyway)");
     }
 
     /** TR must hold the trains played in it; the knot count follows one stated rule. */

@@ -170,6 +170,11 @@ final class DesignOutputs {
             sb.append(String.format(Locale.ROOT, "Objective %s: %.6f; best constant flip in the same limits %.2f° gives %.6f "
                     + "(ratio %.3f).%n", r.spec(), r.objectiveValue(), r.constantFlipDeg(), r.constantObjective(),
                     r.objectiveValue() / r.constantObjective()));
+            if (!r.budgetBinding()) {
+                sb.append(String.format(Locale.ROOT, "The SAR budget is not binding: the best schedule uses %.4f of the "
+                        + "%s allowed, so the objective alone set the flips (a larger budget gives the same schedule).%n",
+                        x.relativeSar(), g(x.limits().sarBudget())));
+            }
         }
         sb.append(String.format(Locale.ROOT, "Relative SAR (refocusing pulses vs all 180°): %.4f; with the excitation: %.4f; "
                 + "budget %s: %s.%n", x.relativeSar(), x.relativeSarWithExcitation(), g(x.limits().sarBudget()),
@@ -199,7 +204,7 @@ final class DesignOutputs {
                 Double.isNaN(x.b1rmsUt()) ? "" : String.format(Locale.ROOT, ", B1+rms %.2f µT", x.b1rmsUt()));
     }
 
-    private static String g(double v) {
+    static String g(double v) {
         String s = String.format(Locale.ROOT, "%.4g", v);
         return s.contains(".") && !s.contains("e") ? s.replaceAll("0+$", "").replaceAll("\\.$", "") : s;
     }

@@ -31,19 +31,23 @@ import picocli.CommandLine.Spec;
             "DATA is a CSV decay table (first column echo time in ms, one decay per further column) "
                 + "or a 4-D NIfTI-1 series (.nii/.nii.gz, x, y, z, echo)."},
         footer = {"", "Examples:",
-            "  echotrellis fit decays.csv --protocol sequences/brain-mwi-32.yaml \\",
-            "      --format json",
-            "  echotrellis fit series.nii.gz --protocol sequences/knee-t2-16.yaml \\",
-            "      --mask mask.nii.gz --out t2maps --compare-mono",
-            "  echotrellis fit series.nii.gz --protocol sequences/brain-mwi-32.yaml \\",
-            "      --mask m.nii --noise-sigma auto",
+            "  java -jar target/echotrellis.jar fit sequences/brain-mwi-32-decays.csv \\",
+            "      --protocol sequences/brain-mwi-32.yaml --format json",
+            "  java -jar target/echotrellis.jar demo   # writes plots/phantom-*.nii.gz",
+            "  java -jar target/echotrellis.jar fit plots/phantom-series.nii.gz \\",
+            "      --protocol sequences/brain-mwi-32.yaml \\",
+            "      --mask plots/phantom-mask.nii.gz --out t2maps --compare-mono",
+            "  java -jar target/echotrellis.jar fit plots/phantom-series.nii.gz \\",
+            "      --protocol sequences/brain-mwi-32.yaml \\",
+            "      --mask plots/phantom-mask.nii.gz --out t2maps-noise --noise-sigma auto",
             "",
             "The acquisition (pulse shapes, slice selection, repetition time, crushers,",
             "diffusion) is read from the protocol; T1 is the protocol tissue's unless",
             "--t1-ms is given.",
             "",
             "Volumes: t2_ms, t2_se_ms, b1_scale, b1_se, amplitude, residual_rms, status",
-            "(and mono_t2_ms) as .nii.gz maps, PNG previews and summary.json in --out.",
+            "(and mono_t2_ms) as .nii.gz maps, PNG and SVG previews and summary.json",
+            "in --out.",
             "Status: 0 outside mask, 1 ok, 2 hit bound, 3 low signal, 4 invalid input,",
             "5 not converged.",
             "B1 is reported folded (refocusing angle <= 180 deg) for constant trains",
@@ -52,6 +56,12 @@ import picocli.CommandLine.Spec;
 public final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
+
+    @Mixin
+    PlotOptions plotOptions;
+
+    @Mixin
+    MapOptions mapOptions;
 
     @Spec
     CommandSpec spec;
@@ -110,7 +120,7 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--compare-mono", description = "Also fit the mono-exponential model (map mono_t2_ms).")
     boolean compareMono;
 
-    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table", description = "CSV input: table or json on stdout (default: ${DEFAULT-VALUE}).")
+    @Option(names = "--format", paramLabel = "FMT", defaultValue = "table", description = "Stdout: table or json; for NIfTI input json prints the run summary (default: ${DEFAULT-VALUE}).")
     Format format;
 
     @Option(names = "--out", paramLabel = "DIR", defaultValue = "t2-fit", description = "Output directory (default: ${DEFAULT-VALUE}).")
@@ -174,7 +184,7 @@ public final class FitCommand implements Callable<Integer> {
         info.put("threads", n);
         info.put("provenance", CliChecks.provenance(spec, protocol, data, mask, b1Map));
         new FitVolumeRun(analysis, out, force, quiet, CliChecks.outsideMaskValue(outsideMask), protocol)
-                .run(data, mask, b1Map, b1MapUnits, n, info, o, spec.commandLine().getErr(), report);
+                .run(data, mask, b1Map, b1MapUnits, n, info, format == Format.json, o, spec.commandLine().getErr(), report);
         return 0;
     }
 

@@ -23,6 +23,7 @@ import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.io.VoxelStatus;
 import org.echotrellis.plot.MapPreview;
+import org.echotrellis.plot.PlotSettings;
 import org.echotrellis.report.FitReport;
 
 /** The volume branch of {@code fit}: maps, previews and summary.json. */
@@ -44,13 +45,15 @@ final class FitVolumeRun {
         this.outsideMask = outsideMask;
     }
 
-    /** Map names that get a PNG preview, with their colour-bar labels. */
+    /** Map names that get a PNG and SVG preview, with their titles and colour-bar labels. */
     private static final String[][] PREVIEWS = {
-        {"t2_ms", "T2 (ms)"}, {"mono_t2_ms", "mono-exponential T2 (ms)"}, {"b1_scale", "B1 scale"},
-        {"amplitude", "amplitude"}, {"status", "status code"}};
+        {"t2_ms", "T2, EPG fit", "T2 (ms)"}, {"mono_t2_ms", "T2, mono-exponential fit", "T2 (ms)"},
+        {"b1_scale", "B1 scale", "B1 scale"}, {"amplitude", "Amplitude", "amplitude"}, {"status", "Voxel status", ""}};
+    /** Figure formats of every preview. */
+    private static final String[] FORMATS = {".png", ".svg"};
 
     VolumeMaps run(Path data, Path maskFile, Path b1File, FitCommand.B1Units b1Units, int threads,
-            Map<String, Object> info, PrintWriter o, PrintWriter err, ReportOption report) {
+            Map<String, Object> info, boolean json, PrintWriter o, PrintWriter err, ReportOption report) {
         // every header is checked (series against protocol, mask and B1 map against the series)
         // before any file is inflated or any voxel array allocated
         NiftiHeader grid = Nifti.readHeader(data);
@@ -66,7 +69,7 @@ final class FitVolumeRun {
                     .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);
             VolumeJob job = CliChecks.volumeJob(in, mask, b1, threads);
             set.plan(plannedFiles(analysis.mapNames()));
-            VolumeMaps maps = analysis.run(job, new StderrProgressBar(err, quiet));
+            VolumeMaps maps = analysis.run(job, StderrProgressBar.onTerminal(err, quiet));
             info.put("noise_sigma", Double.isNaN(maps.noiseSigma()) ? null : maps.noiseSigma());
             VolumeResult res = maps.result();
             refuseNothingFitted(res, job, b1File);
@@ -77,8 +80,12 @@ final class FitVolumeRun {
             report.settings(info);
             report.write("fit: " + data.getFileName(), force, r -> FitReport.volume(r, res, in, b1, sampleFit(maps)));
             double[] t2 = res.fittedValues("t2_ms");
-            o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
-                    res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
+            if (json) {
+                o.println(org.echotrellis.io.Json.write(RunSummary.build(res, info)).strip());
+            } else {
+                o.printf(Locale.ROOT, "fitted %d voxels in %.2f s (%.0f voxels/s); median T2 %.1f ms; maps in %s%n",
+                        res.processed(), res.seconds(), res.voxelsPerSecond(), RunSummary.percentile(t2, 50), outDir);
+            }
             o.flush();
             return maps;
         }
@@ -132,7 +139,9 @@ final class FitVolumeRun {
         f.add("summary.json");
         for (String[] p : PREVIEWS) {
             if (outputs.contains(p[0]) || p[0].equals("status")) {
-                f.add(p[0] + ".png");
+                for (String ext : FORMATS) {
+                    f.add(p[0] + ext);
+                }
             }
         }
         return f;
@@ -142,31 +151,41 @@ final class FitVolumeRun {
         int nx = h.size(1);
         int ny = h.size(2);
         int nz = h.size(3);
-        double[] t2 = res.fittedValues("t2_ms");
-        double lo = RunSummary.percentile(t2, 2);
-        double hi = RunSummary.percentile(t2, 98);
+        double[] t2Range = sharedT2Range(res);
         for (String[] p : PREVIEWS) {
-            float[] map;
-            double a = Double.NaN;
-            double b = Double.NaN;
-            if (p[0].equals("status")) {
-                byte[] s = res.status();
-                map = new float[s.length];
-                for (int i = 0; i < s.length; i++) {
-                    map[i] = s[i];
+            for (String ext : FORMATS) {
+                Path file = outDir.resolve(p[0] + ext);
+                if (p[0].equals("status")) {
+                    MapPreview.writeCentralCategories(file, res.status(), nx, ny, nz, p[1], StatusColours.CATEGORIES, force);
+                } else if (res.names().contains(p[0])) {
+                    double[] r = p[0].endsWith("t2_ms") ? t2Range : new double[] {Double.NaN, Double.NaN};
+                    MapPreview.writeCentralSlice(file, res.map(p[0]), nx, ny, nz, p[1], p[2], r[0], r[1], force);
                 }
-                a = 0;
-                b = 5;
-            } else if (res.names().contains(p[0])) {
-                map = res.map(p[0]);
-                if (p[0].endsWith("t2_ms")) {
-                    a = lo;
-                    b = hi;
-                }
-            } else {
-                continue;
             }
-            MapPreview.writeCentralSlice(outDir.resolve(p[0] + ".png"), map, nx, ny, nz, p[1], p[1], a, b, force);
         }
+    }
+
+    /**
+     * One colour range for the T2 maps (EPG and mono-exponential), so that the bias the comparison
+     * exists to show is not clipped: {@code --display-range}, or from the lowest 2nd to the highest
+     * 98th percentile of the fitted voxels of both maps.
+     */
+    private static double[] sharedT2Range(VolumeResult res) {
+        PlotSettings ps = PlotSettings.current();
+        if (ps.hasDisplayRange()) {
+            return new double[] {ps.displayLo(), ps.displayHi()};
+        }
+        double lo = Double.POSITIVE_INFINITY;
+        double hi = Double.NEGATIVE_INFINITY;
+        for (String name : new String[] {"t2_ms", "mono_t2_ms"}) {
+            if (res.names().contains(name)) {
+                double[] v = res.fittedValues(name);
+                if (v.length > 0) {
+                    lo = Math.min(lo, RunSummary.percentile(v, 2));
+                    hi = Math.max(hi, RunSummary.percentile(v, 98));
+                }
+            }
+        }
+        return lo <= hi ? new double[] {lo, hi} : new double[] {Double.NaN, Double.NaN};
     }
 }

@@ -43,7 +43,7 @@ final class FoundationDemo implements DemoSection {
                 .append("|---|---|---|---|---|---|\n");
         for (double b1 : B1_VALUES) {
             EchoTrain train = Simulator.simulate(p, t1, t2, b1);
-            plot.train(String.format(Locale.ROOT, "EPG, B1 = %.2f", b1), train);
+            plot.train(String.format(Locale.ROOT, "%s (T2 %.0f ms), B1 %.2f", p.tissue().name(), t2, b1), train);
             double all = monoT2(train.timesMs(), train.magnitudes(), 0);
             double dropped = monoT2(train.timesMs(), train.magnitudes(), 1);
             s.append(String.format(Locale.ROOT, "| %.2f | %.0f° | %.1f | %+.1f %% | %.1f | %+.1f %% |%n", b1, 180 * b1, all,
@@ -51,8 +51,7 @@ final class FoundationDemo implements DemoSection {
         }
         double[] times = p.echoTimesMs();
         plot.ideal(t2, 1.0, times[times.length - 1]);
-        ChartFiles.write(plot.build(), ctx.file("knee-echo-trains.png"), 900, 560, ctx.force());
-        ChartFiles.write(plot.build(), ctx.file("knee-echo-trains.svg"), 900, 560, ctx.force());
+        ChartFiles.writePngAndSvg(plot.build(), ctx.outDir(), "knee-echo-trains", 900, 560, ctx.force());
 
         int m = 26;
         double[] b1s = new double[m];
@@ -66,14 +65,14 @@ final class FoundationDemo implements DemoSection {
             appDrop[i] = monoT2(train.timesMs(), train.magnitudes(), 1);
             truth[i] = t2;
         }
-        ChartFiles.write(LineChart.create("Apparent mono-exponential T2 against B1", "B1 scale (fraction of nominal flip)",
+        ChartFiles.writePngAndSvg(LineChart.create("Apparent mono-exponential T2 against B1", "B1 scale (fraction of nominal flip)",
                         "T2 (ms)")
                 .subtitle("Knee cartilage train, no noise: the bias comes from stimulated echoes alone")
                 .add("mono-exponential, all echoes", b1s, app, LineChart.Look.LINE_MARKERS)
                 .add("mono-exponential, echo 1 dropped", b1s, appDrop, LineChart.Look.LINE_MARKERS)
-                .add("true T2", b1s, truth, LineChart.Look.DASHED, 5)
-                .build(), ctx.file("knee-apparent-t2.png"), 900, 560, ctx.force());
-        s.append("\nFigures: `knee-echo-trains.png` (and `.svg`), `knee-apparent-t2.png`.\n\n");
+                .add("true T2", b1s, truth, LineChart.Look.DASHED, LineChart.INK)
+                .build(), ctx.outDir(), "knee-apparent-t2", 900, 560, ctx.force());
+        s.append("\nFigures: `knee-echo-trains.png`, `knee-apparent-t2.png` (and `.svg`).\n\n");
     }
 
     /** Least-squares fit of A exp(-t/T2) to echoes from index {@code skip} on; returns T2 in ms. */

@@ -41,20 +41,24 @@ import picocli.CommandLine.Spec;
             "the first tissue), or a label image (.png grey values, or a .nii/.nii.gz",
             "slice) with --label VALUE=TISSUE for each label that has signal.",
             "", "Examples:",
-            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 \\",
-            "      --center-echo 16 --tissue white_matter_3t --tissue csf:4300:1900 \\",
-            "      --noise-sd 0.01 --plot brain.png",
-            "  echotrellis image sequences/knee-t2-16.yaml --phase-lines 128 \\",
-            "      --ordering centric --format json",
-            "  echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 192 \\",
-            "      --tissue white_matter_3t --tissue grey_matter_3t --phantom labels.png \\",
-            "      --label 1=white_matter_3t --label 2=grey_matter_3t --out brain-image"})
+            "  java -jar target/echotrellis.jar image sequences/brain-fse-t2-3t.yaml \\",
+            "      --phase-lines 256 --center-echo 8 --tissue white_matter_3t \\",
+            "      --tissue csf:4300:1900 --noise-sd 0.01 --plot brain.png",
+            "  java -jar target/echotrellis.jar image sequences/knee-t2-16.yaml \\",
+            "      --phase-lines 128 --ordering centric --format json",
+            "  java -jar target/echotrellis.jar image sequences/brain-fse-t2-3t.yaml \\",
+            "      --phase-lines 192 --tissue white_matter_3t --tissue grey_matter_3t \\",
+            "      --phantom labels.png --label 1=white_matter_3t \\",
+            "      --label 2=grey_matter_3t --out brain-image"})
 public final class ImageCommand implements Callable<Integer> {
     /** Files written into --out. */
     static final String JSON_FILE = "image.json";
 
     @Mixin
     CommonOptions common;
+
+    @Mixin
+    PlotOptions plotOptions;
 
     @Spec
     CommandSpec spec;

@@ -8,6 +8,7 @@ import java.util.Arrays;
 import org.echotrellis.InputException;
 import org.echotrellis.io.CheckedWriter;
 import org.echotrellis.io.WriteFailure;
+import org.echotrellis.plot.PlotSettings;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -18,16 +19,21 @@ import picocli.CommandLine.Command;
                 + "and follow fast-spin-echo trains into the image.",
         subcommands = {SimulateCommand.class, PathwaysCommand.class, FitCommand.class, SpectrumCommand.class, BidsCommand.class,
             DesignCommand.class, ImageCommand.class, CohortCommand.class, DemoCommand.class, CommandLine.HelpCommand.class},
-        footer = {"", "Example:", "  echotrellis simulate sequences/knee-t2-16.yaml --b1 0.8 --plot knee.png",
+        footer = {"", "Example:", "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
+            "      --b1 0.8 --plot knee.png",
             "", "Research and protocol-planning tool, not a medical device."})
-public final class Main implements Runnable {
+public final class Main implements java.util.concurrent.Callable<Integer> {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
-    /** Prints usage when no subcommand is given. */
+    /** Without a command: prints the usage on stderr and fails (exit 2), as for any other usage error. */
     @Override
-    public void run() {
-        spec.commandLine().usage(spec.commandLine().getErr());
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        err.println("echotrellis: no command given");
+        spec.commandLine().usage(err);
+        err.flush();
+        return 2;
     }
 
     /** @return a configured command line (error handling, case rules) */
@@ -36,6 +42,9 @@ public final class Main implements Runnable {
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.setParameterExceptionHandler(Main::onParameterError);
         cl.setExecutionExceptionHandler(Main::onExecutionError);
+        cl.registerConverter(Double.class, Main::number);
+        cl.registerConverter(Double.TYPE, Main::number);
+        cl.setExecutionStrategy(Main::executeWithPlotSettings);
         return cl;
     }
 
@@ -101,6 +110,41 @@ public final class Main implements Runnable {
             code = 1;
         }
         System.exit(code);
+    }
+
+    /** Numbers as Java reads them, plus "inf" / "-inf" (any case) as the protocol files accept. */
+    private static Double number(String text) {
+        String t = text.trim().toLowerCase(java.util.Locale.ROOT);
+        switch (t) {
+            case "inf", "+inf", "infinity", "+infinity": return Double.POSITIVE_INFINITY;
+            case "-inf", "-infinity": return Double.NEGATIVE_INFINITY;
+            default:
+                try {
+                    return Double.valueOf(t);
+                } catch (NumberFormatException e) {
+                    throw new CommandLine.TypeConversionException("'" + text + "' is not a number (use digits, or inf)");
+                }
+        }
+    }
+
+    /**
+     * Runs the chosen command with its figure settings ({@code --plot-scale}, {@code --display-range})
+     * in scope, so every chart it writes follows them.
+     */
+    private static int executeWithPlotSettings(CommandLine.ParseResult parsed) {
+        CommandLine.ParseResult leaf = parsed;
+        while (leaf.hasSubcommand()) {
+            leaf = leaf.subcommand();
+        }
+        PlotSettings settings;
+        try {
+            settings = PlotOptions.settings(leaf);
+        } catch (InputException e) {
+            return onExecutionError(e, leaf.commandSpec().commandLine(), parsed);
+        }
+        try (PlotSettings.Scope scope = PlotSettings.open(settings)) {
+            return new CommandLine.RunLast().execute(parsed);
+        }
     }
 
     private static boolean debug(String[] args) {

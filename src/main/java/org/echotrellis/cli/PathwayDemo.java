@@ -32,14 +32,12 @@ final class PathwayDemo implements DemoSection {
         ClassDecomposition d = PathwayAnalysis.classes(p);
         String conditions = String.format(Locale.ROOT, "T1 = %.0f ms, T2 = %.0f ms, B1 = %.1f (refocusing %.0f°)",
                 p.tissue().t1Ms(), p.tissue().t2Ms(), B1, 180 * B1);
-        ChartFiles.write(ClassContributionChart.create("Knee train: spin-echo and stimulated-echo classes per echo",
-                conditions, d), ctx.file("knee-pathway-classes.png"), 900, 560, ctx.force());
+        ChartFiles.writePngAndSvg(ClassContributionChart.create("Knee train: spin-echo and stimulated-echo classes per echo",
+                conditions, d), ctx.outDir(), "knee-pathway-classes", 900, 560, ctx.force());
         PhaseGraph g = PathwayAnalysis.phaseGraph(p, 1e-3, 100_000, Double.POSITIVE_INFINITY);
         String sub = conditions + "; states below 0.001 of M0 not drawn";
-        ChartFiles.write(PhaseGraphDiagram.create("Knee train: phase graph", sub, g), ctx.file("knee-phase-graph.png"),
-                1000, 600, ctx.force());
-        ChartFiles.write(PhaseGraphDiagram.create("Knee train: phase graph", sub, g), ctx.file("knee-phase-graph.svg"),
-                1000, 600, ctx.force());
+        ChartFiles.writePngAndSvg(PhaseGraphDiagram.create("Knee train: phase graph", sub, g), ctx.outDir(),
+                "knee-phase-graph", 1000, 600, ctx.force());
         TopPathways tp = PathwayAnalysis.topPathways(p, d, ECHO, PathwaySearch.Limits.of(5));
 
         StringBuilder s = ctx.summary();

@@ -118,7 +118,7 @@ final class PathwayReport {
                     tp.unexplainedShare(), tp.unexplainedMagnitude(),
                     tp.complete() ? "" : " (search stopped at its memory cap)"));
         }
-        return sb.toString();
+        return Tables.noNegativeZero(sb.toString());
     }
 
     static String csv(ClassDecomposition d, TopPathways tp) {

@@ -31,16 +31,23 @@ import picocli.CommandLine.Spec;
                 + "as dephased longitudinal magnetization (m = 0: spin echoes; m >= 1: stimulated echoes), "
                 + "list the largest individual pathways of one echo, and draw the phase graph."},
         footer = {"", "Examples:",
-            "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --plot classes.png",
-            "  echotrellis pathways sequences/brain-mwi-32.yaml --b1 0.8 --diagram graph.svg --diagram-threshold 0.01",
-            "  echotrellis pathways sequences/knee-t2-16.yaml --b1 0.8 --echo 4 --top 8",
-            "  echotrellis pathways sequences/three-pulse-stimulated.yaml --format json",
+            "  java -jar target/echotrellis.jar pathways sequences/knee-t2-16.yaml \\",
+            "      --b1 0.8 --plot classes.png",
+            "  java -jar target/echotrellis.jar pathways sequences/brain-mwi-32.yaml \\",
+            "      --b1 0.8 --diagram graph.svg --diagram-threshold 0.01",
+            "  java -jar target/echotrellis.jar pathways sequences/knee-t2-16.yaml \\",
+            "      --b1 0.8 --echo 4 --top 8",
+            "  java -jar target/echotrellis.jar pathways \\",
+            "      sequences/three-pulse-stimulated.yaml --format json",
             "", "Pathway notation: origin (Z0 equilibrium, Rp regrown in period p), then the state after each "
                 + "pulse: Fk transverse with signed order k, Zk longitudinal (sign = direction it re-emerges), "
                 + "S*n = n repeats. Example: Z0 F0 Z-1 F-1 is the stimulated echo of CPMG echo 2."})
 public final class PathwaysCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
+
+    @Mixin
+    PlotOptions plotOptions;
 
     @Spec
     CommandSpec spec;

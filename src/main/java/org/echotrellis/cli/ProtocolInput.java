@@ -18,14 +18,19 @@ public final class ProtocolInput {
     @Parameters(index = "0", paramLabel = "FILE", description = "Protocol file (.yaml, .yml or .json).")
     Path file;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms.")
+    @Option(names = "--t1-ms", paramLabel = "MS", description = "Override the tissue T1 in ms ('inf' for no T1 recovery).")
     Double t1Ms;
 
-    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms.")
+    @Option(names = "--t2-ms", paramLabel = "MS", description = "Override the tissue T2 in ms ('inf' for no T2 decay).")
     Double t2Ms;
 
-    @Option(names = "--b1", paramLabel = "SCALE", description = "Override the B1 (flip-angle) scale, e.g. 0.8.")
+    @Option(names = "--b1", paramLabel = "SCALE",
+            description = "Override the B1 (flip-angle) scale, e.g. 0.8; it multiplies every pulse, excitation included.")
     Double b1;
+
+    @Option(names = "--refocusing-flip-deg", paramLabel = "DEG",
+            description = "Replace the protocol's constant refocusing flip (the excitation is unchanged; --b1 still scales both).")
+    Double refocusingFlipDeg;
 
     /** @return the protocol read from FILE with the overrides applied */
     public Protocol load() {
@@ -43,6 +48,7 @@ public final class ProtocolInput {
             t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
         }
         double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
-        return p.withTissue(t).withB1Scale(scale);
+        Protocol q = refocusingFlipDeg == null ? p : p.withConstantRefocusFlipDeg(refocusingFlipDeg);
+        return q.withTissue(t).withB1Scale(scale);
     }
 }

@@ -22,7 +22,6 @@ import org.echotrellis.sequence.EchoTrain;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.Simulator;
 import org.echotrellis.sequence.Tissue;
-import org.echotrellis.sequence.TissuePresets;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -34,12 +33,23 @@ import picocli.CommandLine.Spec;
 @Command(name = "simulate", mixinStandardHelpOptions = true,
         description = "Predict the echo train of a protocol file with the extended phase graph.",
         footer = {"", "Examples:",
-            "  echotrellis simulate sequences/knee-t2-16.yaml --b1 0.8 --plot knee.png",
-            "  echotrellis simulate sequences/brain-mwi-32.yaml --format json",
-            "  echotrellis simulate sequences/knee-t2-16.yaml --sweep t2_ms=10:100:10 --sweep b1=0.6:1:5 --out dict.csv"})
+            "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
+            "      --b1 0.8 --plot knee.png --plot-tissue csf_3t,lesion:1400:120",
+            "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
+            "      --refocusing-flip-deg 150 --t2-ms inf",
+            "  java -jar target/echotrellis.jar simulate sequences/brain-mwi-32.yaml \\",
+            "      --format json",
+            "  java -jar target/echotrellis.jar simulate sequences/knee-t2-16.yaml \\",
+            "      --sweep t2_ms=10:100:10 --sweep b1=0.6:1:5 --out dict.csv",
+            "",
+            "--b1 scales every pulse (the excitation too, as a B1 fall-off does);",
+            "--refocusing-flip-deg changes only the refocusing pulses."})
 public final class SimulateCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
+
+    @Mixin
+    PlotOptions plotOptions;
 
     @Spec
     CommandSpec spec;
@@ -61,8 +71,9 @@ public final class SimulateCommand implements Callable<Integer> {
             description = "Extra B1 scales drawn on the plot, e.g. 0.7,0.85.")
     List<Double> plotB1 = new ArrayList<>();
 
-    @Option(names = "--plot-tissue", paramLabel = "PRESET", split = ",",
-            description = "Extra tissues (preset names) drawn on the plot at the same B1, e.g. grey_matter_3t.")
+    @Option(names = "--plot-tissue", paramLabel = "TISSUE", split = ",",
+            description = "Extra tissues drawn on the plot at the same B1: a preset name (e.g. csf_3t) "
+                    + "or NAME:T1_MS:T2_MS (e.g. lesion:1400:120).")
     List<String> plotTissues = new ArrayList<>();
 
     @Option(names = "--sweep", paramLabel = "NAME=START:STOP:COUNT",
@@ -121,14 +132,14 @@ public final class SimulateCommand implements Callable<Integer> {
         EchoPlot ep = EchoPlot.create(p.name() + ": predicted echo train")
                 .subtitle(String.format(Locale.ROOT, "T1 = %s ms, T2 = %s ms, B1 = %.2f; engine: %s",
                         Tables.num(t.t1Ms()), Tables.num(t.t2Ms()), scale, p.cpmg().isPresent() ? "CPMG fast path" : "general"));
-        ep.train("EPG, B1 = " + String.format(Locale.ROOT, "%.2f", scale), train);
+        ep.train(tissueLabel(t) + String.format(Locale.ROOT, ", B1 %.2f", scale), train);
         for (double extra : plotB1) {
-            ep.train("EPG, B1 = " + String.format(Locale.ROOT, "%.2f", extra),
+            ep.train(tissueLabel(t) + String.format(Locale.ROOT, ", B1 %.2f", extra),
                     Simulator.simulate(p, t.t1Ms(), t.t2Ms(), CliChecks.b1("--plot-b1", extra)));
         }
-        for (String name : plotTissues) {
-            Tissue extra = TissuePresets.get(name);
-            ep.train(name + String.format(Locale.ROOT, " (T1 %s, T2 %s ms)", Tables.num(extra.t1Ms()), Tables.num(extra.t2Ms())),
+        for (String spec : plotTissues) {
+            Tissue extra = TissueOption.parse(spec, "--plot-tissue");
+            ep.train(tissueLabel(extra) + String.format(Locale.ROOT, ", B1 %.2f", scale),
                     Simulator.simulate(p, extra.t1Ms(), extra.t2Ms(), scale));
         }
         double[] times = train.timesMs();
@@ -162,12 +173,8 @@ public final class SimulateCommand implements Callable<Integer> {
             for (double extra : plotB1) {
                 CliChecks.b1("--plot-b1", extra);
             }
-            for (String name : plotTissues) {
-                try {
-                    TissuePresets.get(name);
-                } catch (InputException e) {
-                    throw new InputException("--plot-tissue: " + e.getMessage(), e);
-                }
+            for (String spec : plotTissues) {
+                TissueOption.parse(spec, "--plot-tissue");
             }
             return;
         }
@@ -180,6 +187,12 @@ public final class SimulateCommand implements Callable<Integer> {
                 throw new InputException(option + " cannot be combined with --sweep; a sweep writes CSV, one row per grid point");
             }
         }
+    }
+
+    /** Legend text of a tissue: its name (or "tissue") with T1 and T2. */
+    private static String tissueLabel(Tissue t) {
+        String name = t.name() == null || t.name().isBlank() ? "tissue" : t.name();
+        return String.format(Locale.ROOT, "%s (T1 %s, T2 %s ms)", name, Tables.num(t.t1Ms()), Tables.num(t.t2Ms()));
     }
 
     private Map<String, Object> json(Protocol p, EchoTrain train) {
@@ -208,7 +221,8 @@ public final class SimulateCommand implements Callable<Integer> {
         SweepGrid grid = SweepGrid.parse(sweeps, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale());
         int nThreads = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
         int chunk = SweepWriter.chunkPoints(p.echoCount());
-        try (ProgressBar bar = new ProgressBar(spec.commandLine().getErr(), "points", grid.size(), quiet)) {
+        try (ProgressBar bar = new ProgressBar(spec.commandLine().getErr(), "points", grid.size(),
+                quiet || !Terminal.stderrIsTerminal())) {
             if (out != null) {
                 AtomicFiles.write(out, force, stream -> {
                     Writer w = new BufferedWriter(new OutputStreamWriter(stream, StandardCharsets.UTF_8), 1 << 16);

@@ -35,10 +35,13 @@ import picocli.CommandLine.Spec;
             "Image input (.nii/.nii.gz, 4-D x,y,z,echo) writes spectrum.nii.gz (one volume per T2 bin), maps, "
                 + "status, PNG previews and summary.json into --out."},
         footer = {"", "Examples:",
-            "  echotrellis spectrum decays.csv --protocol sequences/brain-mwi-32.yaml \\",
-            "      --format json",
-            "  echotrellis spectrum brain.nii.gz --protocol sequences/brain-mwi-32.yaml \\",
-            "      --mask brain_mask.nii.gz --fraction-window-ms 10:40 --out mwf",
+            "  java -jar target/echotrellis.jar spectrum \\",
+            "      sequences/brain-mwi-32-decays.csv \\",
+            "      --protocol sequences/brain-mwi-32.yaml --format json",
+            "  java -jar target/echotrellis.jar demo   # writes plots/phantom-*.nii.gz",
+            "  java -jar target/echotrellis.jar spectrum plots/phantom-series.nii.gz \\",
+            "      --protocol sequences/brain-mwi-32.yaml \\",
+            "      --mask plots/phantom-mask.nii.gz --fraction-window-ms 10:40 --out mwf",
             "",
             "Defaults follow the protocol: T2 grid from the first echo time to",
             "4 x the last, 15 bins per decade; T1 of the protocol tissue; misfit",
@@ -50,6 +53,12 @@ import picocli.CommandLine.Spec;
 public final class SpectrumCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
+
+    @Mixin
+    PlotOptions plotOptions;
+
+    @Mixin
+    MapOptions mapOptions;
 
     @Spec
     CommandSpec spec;
@@ -149,8 +158,8 @@ public final class SpectrumCommand implements Callable<Integer> {
             Checks.inRange("--threads", n, 1, 1024, null);
             var res = SpectrumVolumes.run(data, mask, b1Map, analysis, n, out, force,
                     CliChecks.outsideMaskValue(outsideMask), settings,
-                    new StderrProgressBar(spec.commandLine().getErr(), quiet), spec.commandLine().getOut(),
-                    java.util.Arrays.asList(data, mask, protocol, b1Map)).result();
+                    StderrProgressBar.onTerminal(spec.commandLine().getErr(), quiet), format == Format.json,
+                    spec.commandLine().getOut(), java.util.Arrays.asList(data, mask, protocol, b1Map)).result();
             report.settings(settings);
             report.write("spectrum: " + data.getFileName(), force, r -> CommandReports.spectrumVolume(r, res, options));
         } else {

@@ -66,14 +66,17 @@ final class SpectrumDemo implements DemoSection {
         }
         double seconds = (System.nanoTime() - t0) * 1e-9;
         String win = String.format(Locale.ROOT, "%.3g–%.3g ms", o.windows().get(0).loMs(), o.windows().get(0).hiMs());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-map.png"), fraction, NX, NY, 1,
-                "Fitted short-T2 fraction (" + win + ")", "fraction", 0, 0.3, ctx.force());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-truth.png"), fractionTrue, NX, NY, 1,
-                "True short-T2 fraction (phantom)", "fraction", 0, 0.3, ctx.force());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-map.png"), angle, NX, NY, 1,
-                "Fitted refocusing angle", "angle (deg)", 130, 180, ctx.force());
-        MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-truth.png"), angleTrue, NX, NY, 1,
-                "True refocusing angle (180° × B1)", "angle (deg)", 130, 180, ctx.force());
+        for (String ext : new String[] {".png", ".svg"}) {
+            MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-map" + ext), fraction, NX, NY, 1,
+                    "Fitted short-T2 fraction (" + win + ")", "fraction", 0, 0.3, ctx.force());
+            MapPreview.writeCentralSlice(ctx.file("spectrum-fraction-truth" + ext), fractionTrue, NX, NY, 1,
+                    "True short-T2 fraction (phantom)", "fraction", 0, 0.3, ctx.force());
+            MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-map" + ext), angle, NX, NY, 1,
+                    "Fitted refocusing angle", "angle (deg)", 130, 180, ctx.force());
+            MapPreview.writeCentralSlice(ctx.file("spectrum-refocus-truth" + ext), angleTrue, NX, NY, 1,
+                    "True refocusing angle (180° × B1)", "angle (deg)", 130, 180, ctx.force());
+        }
+        ctx.log(String.format(Locale.ROOT, "spectrum slice: %d voxels in %.2f s on one thread", fitted, seconds));
         int[] picks = {pick(ph, SpectrumPhantom.TRACT), pick(ph, SpectrumPhantom.WHITE), pick(ph, SpectrumPhantom.GREY)};
         String[] labels = {"dense tract", "white matter", "cortex"};
         List<String> names = new ArrayList<>();

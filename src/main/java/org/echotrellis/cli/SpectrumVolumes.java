@@ -24,6 +24,7 @@ import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.VolumeJob;
 import org.echotrellis.io.VolumeResult;
 import org.echotrellis.plot.MapPreview;
+import org.echotrellis.plot.PlotSettings;
 
 /**
  * Image input of {@code spectrum}: runs the fit over the volume (slab streaming, mask, threads and
@@ -32,11 +33,14 @@ import org.echotrellis.plot.MapPreview;
  * Memory: the input is streamed; outputs are held as float32, (bins + maps) · 4 bytes per voxel.
  */
 final class SpectrumVolumes {
+    /** Figure formats of every map preview. */
+    private static final String[] PREVIEW_FORMATS = {".png", ".svg"};
+
     private SpectrumVolumes() { }
 
     static VolumeMaps run(Path data, Path mask, Path b1Map, VolumeAnalysis analysis, int threads, Path out, boolean force,
                           float outsideMask, Map<String, Object> settings, ProgressReporter progress,
-                          PrintWriter stdout, List<Path> inputs) throws Exception {
+                          boolean json, PrintWriter stdout, List<Path> inputs) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
             throw new InputException("--out " + out + " exists and is not a directory");
         }
@@ -52,34 +56,55 @@ final class SpectrumVolumes {
             org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             set.plan(plannedFiles(analysis, o));
             VolumeMaps r = analysis.run(job, progress);
-            write(r, o, out, force, outsideMask, settings);
+            Map<String, Object> s = write(r, o, out, force, outsideMask, settings);
             set.commit();
             VolumeResult res = r.result();
-            stdout.printf(Locale.ROOT, "spectrum: %d voxels fitted in %.1f s (%.0f voxels/s); outputs in %s%n",
-                    res.processed(), res.seconds(), res.voxelsPerSecond(), out);
+            if (json) {
+                stdout.println(summary(res, s).strip());
+            } else {
+                stdout.printf(Locale.ROOT, "spectrum: %d voxels fitted in %.1f s (%.0f voxels/s); outputs in %s%n",
+                        res.processed(), res.seconds(), res.voxelsPerSecond(), out);
+            }
             stdout.flush();
             return r;
         }
     }
 
-    private static void write(VolumeMaps r, SpectrumOptions o, Path out, boolean force, float outsideMask,
-                              Map<String, Object> settings) {
+    private static Map<String, Object> write(VolumeMaps r, SpectrumOptions o, Path out, boolean force,
+                                             float outsideMask, Map<String, Object> settings) {
         NiftiHeader h = r.mapHeader();
         int nx = h.size(1);
         int ny = h.size(2);
         int nz = h.size(3);
         r.write(out, outsideMask, force);
         List<String> scalars = r.mapNames();
+        double fractionHi = sharedEnd(r.result(), scalars, "fraction_", 98);
+        double gmLo = sharedEnd(r.result(), scalars, "gm_t2_", 2);
+        double gmHi = sharedEnd(r.result(), scalars, "gm_t2_", 98);
+        PlotSettings ps = PlotSettings.current();
         for (String name : scalars) {
             if (name.equals("chi2_unregularised")) {
                 continue;
             }
-            MapPreview.writeCentralSlice(out.resolve(name + ".png"), r.map(name), nx, ny, nz, title(name), unit(name),
-                    name.startsWith("fraction_") ? 0 : Double.NaN, Double.NaN, force);
+            double lo = Double.NaN;
+            double hi = Double.NaN;
+            if (name.startsWith("fraction_")) {
+                // the window fractions share one range (from 0), or --display-range
+                lo = ps.hasDisplayRange() ? ps.displayLo() : 0;
+                hi = ps.hasDisplayRange() ? ps.displayHi() : fractionHi;
+            } else if (name.startsWith("gm_t2_")) {
+                lo = gmLo;
+                hi = gmHi;
+            }
+            for (String ext : PREVIEW_FORMATS) {
+                MapPreview.writeCentralSlice(out.resolve(name + ext), r.map(name), nx, ny, nz, title(name), unit(name),
+                        lo, hi, force);
+            }
         }
         Map<String, Object> s = new LinkedHashMap<>(settings);
         s.put("outputs", outputs(scalars));
         org.echotrellis.io.AtomicFiles.writeString(out.resolve("summary.json"), summary(r.result(), s), force);
+        return s;
     }
 
     /**
@@ -105,7 +130,22 @@ final class SpectrumVolumes {
             "hit_bound", "regularisation_target_not_reached",
             "not_converged", "nnls_iteration_limit");
 
-    /** Fails before any work if an output exists and --force is not given (same message as the writer). */
+
+    /**
+     * The lowest 2nd ({@code q} = 2) or highest 98th ({@code q} = 98) percentile over the maps whose
+     * name starts with {@code prefix}, so that comparable maps share one colour range (NaN if none).
+     */
+    private static double sharedEnd(VolumeResult r, List<String> scalars, String prefix, int q) {
+        double end = Double.NaN;
+        for (String n : scalars) {
+            if (n.startsWith(prefix) && r.fittedValues(n).length > 0) {
+                double v = RunSummary.percentile(r.fittedValues(n), q);
+                end = Double.isNaN(end) ? v : q < 50 ? Math.min(end, v) : Math.max(end, v);
+            }
+        }
+        return end;
+    }
+
     /** The files a run writes, checked before any work. */
     static List<String> plannedFiles(VolumeAnalysis analysis, SpectrumOptions o) {
         List<String> names = new ArrayList<>(VolumeMaps.fileNames(analysis));
@@ -113,6 +153,7 @@ final class SpectrumVolumes {
         for (String n : SpectrumNames.scalars(o)) {
             if (!n.equals("chi2_unregularised")) {
                 names.add(n + ".png");
+                names.add(n + ".svg");
             }
         }
         return names;

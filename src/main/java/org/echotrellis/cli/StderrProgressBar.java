@@ -22,6 +22,18 @@ public final class StderrProgressBar implements ProgressReporter {
         this.quiet = quiet;
     }
 
+    /**
+     * A bar that draws only when stderr is a terminal and {@code --quiet} is not given, so progress
+     * never fills log files or pipes.
+     *
+     * @param err the command's stderr
+     * @param quiet {@code --quiet}
+     * @return the reporter
+     */
+    public static StderrProgressBar onTerminal(PrintWriter err, boolean quiet) {
+        return new StderrProgressBar(err, quiet || !Terminal.stderrIsTerminal());
+    }
+
     @Override
     public synchronized void start(String task, long total) {
         bar = new ProgressBar(err, task, total, quiet);

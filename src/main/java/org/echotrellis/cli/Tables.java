@@ -15,6 +15,17 @@ final class Tables {
         return v == Math.rint(v) && Math.abs(v) < 1e12 ? Long.toString((long) v) : String.format(Locale.ROOT, "%.6g", v);
     }
 
+    /**
+     * Removes the sign of values that print as zero ("-0.000" → " 0.000", width kept), so aligned
+     * tables never show a negative zero for a phase or component that rounds to nothing.
+     *
+     * @param text formatted table text
+     * @return the same text without negative zeros
+     */
+    static String noNegativeZero(String text) {
+        return text.replaceAll("(?<![0-9.eE])-(0\\.0+)(?![0-9])", " $1");
+    }
+
     /** The leading JSON fields every per-protocol report shares: protocol name, tissue and B1. */
     static java.util.Map<String, Object> protocolJson(Protocol p) {
         java.util.Map<String, Object> root = new java.util.LinkedHashMap<>();
@@ -56,7 +67,7 @@ final class Tables {
             sb.append(String.format(Locale.ROOT, row, i + 1, t.labels().get(i), times[i], t.magnitude(i),
                     t.phaseDeg(i), re[i], im[i]));
         }
-        return sb.toString();
+        return noNegativeZero(sb.toString());
     }
 
     static String echoCsv(EchoTrain t) {

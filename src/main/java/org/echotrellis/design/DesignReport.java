@@ -58,6 +58,17 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
         return target.clone();
     }
 
+    /**
+     * Whether the relative-SAR budget shaped the result: false when the best schedule uses less
+     * than 99 % of it, so that the objective itself, not the budget, set the flips (a looser
+     * budget would give the same schedule).
+     *
+     * @return true if the schedule sits at the budget
+     */
+    public boolean budgetBinding() {
+        return exposure.relativeSar() >= 0.99 * exposure.limits().sarBudget();
+    }
+
     /** @return the JSON form (contract keys first; NaN and 0 sentinels become null) */
     public Map<String, Object> toJson() {
         Map<String, Object> m = new LinkedHashMap<>();
@@ -83,6 +94,7 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
             m.put("objective_value", objectiveValue);
             m.put("best_constant_flip_deg", constantFlipDeg);
             m.put("best_constant_objective", constantObjective);
+            m.put("sar_budget_binding", budgetBinding());
         }
         m.put("exposure", exposure.toJson());
         List<Map<String, Object>> tissues = new ArrayList<>();

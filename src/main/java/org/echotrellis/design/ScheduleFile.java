@@ -27,7 +27,16 @@ public final class ScheduleFile {
             sb.append(String.format(Locale.ROOT, ", B1+rms %.3f µT (TR %.0f ms, %d per TR)", x.b1rmsUt(), x.trMs(),
                     x.slices()));
         }
-        sb.append(".\n# ").append(IecLimits.CAUTION).append('\n');
+        sb.append(".\n");
+        ExposureLimits lim = x.limits();
+        sb.append(String.format(Locale.ROOT, "# Designed for: relative-SAR budget %s", plain(lim.sarBudget())));
+        if (lim.hasB1rmsLimit()) {
+            sb.append(String.format(Locale.ROOT, ", B1+rms limit %s µT", plain(lim.b1rmsLimitUt())));
+        }
+        sb.append(String.format(Locale.ROOT, ", refocusing pulse %s, excitation flip %s°, B1 scale %s: %s.%n",
+                x.pulse(), num(p.excitationFlipDeg()), num(p.b1Scale()),
+                x.withinLimits() ? "limits met" : "LIMITS EXCEEDED (written on request with --keep-over-limits)"));
+        sb.append("# ").append(IecLimits.CAUTION).append('\n');
         sb.append("name: ").append(quote(name)).append('\n');
         sb.append("description: ").append(quote(description)).append('\n');
         sb.append("tissue: {name: ").append(quote(p.tissueName())).append(", t1_ms: ").append(num(p.t1Ms()))
@@ -54,6 +63,10 @@ public final class ScheduleFile {
             return ".inf";
         }
         return v == Math.rint(v) && Math.abs(v) < 1e12 ? Long.toString((long) v) : Double.toString(v);
+    }
+
+    private static String plain(double v) {
+        return String.format(Locale.ROOT, "%.4g", v).replaceAll("\\.?0+$", "");
     }
 
     private static String quote(String s) {

@@ -264,7 +264,8 @@ public final class OutputSet implements AutoCloseable {
             }
         }
         Path tmp = staging.resolve(MANIFEST);
-        Files.write(tmp, names, StandardCharsets.UTF_8);
+        // sorted, so that regenerating the same outputs (the committed demo figures) gives the same manifest
+        Files.write(tmp, new java.util.TreeSet<>(names), StandardCharsets.UTF_8);
         AtomicFiles.moveInto(tmp, dir.resolve(MANIFEST));
         deleteTree(staging);
     }

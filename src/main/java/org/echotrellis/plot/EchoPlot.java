@@ -8,13 +8,11 @@ import org.jfree.chart.JFreeChart;
  * optionally, the ideal exp(&minus;TE/T2) curve a perfect 180&deg; train would give (dashed).
  */
 public final class EchoPlot {
-    /** Palette colour of the ideal curve; trains use the others. */
-    private static final int IDEAL_COLOR = 5;
     private final LineChart chart;
     private int count;
 
     private EchoPlot(String title) {
-        chart = LineChart.create(title, "Echo time (ms)", "Echo amplitude (fraction of M0)");
+        chart = LineChart.create(title, "Echo time (ms)", "Echo amplitude (fraction of M0)").xFromZero();
     }
 
     /** @return a new echo plot with the given title */
@@ -50,7 +48,7 @@ public final class EchoPlot {
             t[i] = lastMs * i / m;
             y[i] = scale * Math.exp(-t[i] / t2Ms);
         }
-        chart.add("ideal exp(-TE/T2), T2 = " + fmt(t2Ms) + " ms", t, y, LineChart.Look.DASHED, IDEAL_COLOR);
+        chart.add("ideal exp(-TE/T2), T2 = " + fmt(t2Ms) + " ms", t, y, LineChart.Look.DASHED, LineChart.INK);
         return this;
     }
 
@@ -65,10 +63,9 @@ public final class EchoPlot {
         return chart.build();
     }
 
-    /** The next palette colour for a train, cycling over every colour but the ideal curve's. */
+    /** The next palette colour (and marker) for a train; the ideal curve is drawn in ink. */
     private int nextColor() {
-        int c = count++ % (ChartStyle.SERIES_COLORS.length - 1);
-        return c >= IDEAL_COLOR ? c + 1 : c;
+        return count++;
     }
 
     private static String fmt(double v) {

@@ -3,8 +3,6 @@ package org.echotrellis.plot;
 import java.awt.Color;
 import java.util.List;
 import org.jfree.chart.JFreeChart;
-import org.jfree.chart.axis.LogAxis;
-import org.jfree.chart.axis.NumberTickUnit;
 import org.jfree.chart.plot.IntervalMarker;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.ui.Layer;
@@ -32,7 +30,7 @@ public final class SpectrumPlot {
      */
     public static JFreeChart chart(String title, String subtitle, double[] t2Ms, List<String> names,
                                    List<double[]> amplitudes, List<double[]> windowsMs) {
-        LineChart c = LineChart.create(title, "T2 (ms)", "amplitude (signal units)").logX();
+        LineChart c = LineChart.create(title, "T2 (ms)", "Amplitude (signal units)").logX();
         if (subtitle != null) {
             c.subtitle(subtitle);
         }
@@ -41,23 +39,18 @@ public final class SpectrumPlot {
         }
         JFreeChart chart = c.build();
         XYPlot plot = chart.getXYPlot();
-        if (plot.getDomainAxis() instanceof LogAxis ax && t2Ms.length > 0) {
-            ax.setAutoTickUnitSelection(false);
-            ax.setTickUnit(new NumberTickUnit(1.0));          // one major tick per decade
-            ax.setMinorTickCount(9);
-            ax.setMinorTickMarksVisible(true);
-            ax.setRange(t2Ms[0] / 1.15, t2Ms[t2Ms.length - 1] * 1.15);
-        }
+        int row = 0;
         for (double[] w : windowsMs) {
             IntervalMarker m = new IntervalMarker(w[0], w[1]);
             m.setPaint(WINDOW_FILL);
             m.setAlpha(0.25f);
-            m.setLabel(fmt(w[0]) + "–" + fmt(w[1]) + " ms");
+            m.setLabel("window " + fmt(w[0]) + "–" + fmt(w[1]) + " ms");
             m.setLabelFont(ChartStyle.TICK_FONT);
             m.setLabelPaint(ChartStyle.INK);
             m.setLabelAnchor(RectangleAnchor.TOP);
             m.setLabelTextAnchor(TextAnchor.TOP_CENTER);
-            m.setLabelOffset(new RectangleInsets(6, 0, 0, 0));
+            // one text row per window, so labels of overlapping windows never print over each other
+            m.setLabelOffset(new RectangleInsets(6 + 15 * row++, 0, 0, 0));
             plot.addDomainMarker(m, Layer.BACKGROUND);
         }
         return chart;

@@ -225,4 +225,32 @@ public record Protocol(String name, String description, Tissue tissue, double b1
     public Protocol withB1Scale(double b1) {
         return new Protocol(name, description, tissue, b1, events, train, source, acquisition);
     }
+
+    /**
+     * A copy whose refocusing pulses all get the flip {@code flipDeg}; the excitation keeps its flip,
+     * and the B1 scale still multiplies every pulse (so {@code --b1 0.9} with a 150&deg; refocusing
+     * flip gives 135&deg; refocusing and 0.9 of the excitation). Only for protocols written as an
+     * echo train with one constant refocusing flip: a schedule or an event list is refused, since
+     * replacing it with one flip would silently discard what the file describes.
+     *
+     * @param flipDeg refocusing flip in degrees, within (0, 360]
+     * @return the changed protocol
+     * @throws org.echotrellis.InputException for event lists, schedules or a flip out of range
+     */
+    public Protocol withConstantRefocusFlipDeg(double flipDeg) {
+        if (!(flipDeg > 0 && flipDeg <= 360)) {
+            throw new org.echotrellis.InputException("--refocusing-flip-deg must be within (0, 360], got " + flipDeg);
+        }
+        CpmgTrain t = train.orElseThrow(() -> new org.echotrellis.InputException("--refocusing-flip-deg sets the "
+                + "constant flip of an echo-train protocol, but " + source + " is an event list; edit its rf events"));
+        double[] f = t.refocusFlipsDeg();
+        for (double v : f) {
+            if (v != f[0]) {
+                throw new org.echotrellis.InputException("--refocusing-flip-deg replaces a constant refocusing flip, but "
+                        + source + " has a schedule (train.refocusing.flips_deg); edit the schedule instead");
+            }
+        }
+        java.util.Arrays.fill(f, flipDeg);
+        return ofTrain(name, description, tissue, b1Scale, t.withRefocusFlipsDeg(f), source);
+    }
 }

@@ -15,6 +15,11 @@ import org.echotrellis.InputException;
  * knee means of G. E. Gold et al., "Musculoskeletal MRI at 3.0 T: relaxation times and image
  * contrast", AJR 183:343 (2004) — from memory, lower confidence. Relaxation times vary with method
  * and subject (Bojorquez et al., Magn Reson Imaging 35:69, 2017); the presets are planning values.
+ *
+ * <p>CSF and fat: {@code csf_*} are round typical values of cerebrospinal fluid (T1 about 4 s, T2
+ * about 2 s; free water near body temperature) and {@code fat_*} of subcutaneous adipose tissue as
+ * one mono-exponential component (its methylene resonances really relax with several T2s) — from
+ * memory, no single source; use them to show contrast, not to quantify.
  */
 public final class TissuePresets {
     private static final Map<String, Tissue> PRESETS = new LinkedHashMap<>();
@@ -47,6 +52,11 @@ public final class TissuePresets {
         add("synovial_fluid_3t", 3620, 767, gold);
         add("marrow_3t", 371, 49, gold);
         add("subcutaneous_fat_3t", 382, 68, gold);
+        String typical = "typical value, from memory, no single source";
+        add("csf_1p5t", 4000, 2000, typical);
+        add("csf_3t", 4200, 2000, typical);
+        add("fat_1p5t", 260, 80, typical);
+        add("fat_3t", 380, 70, typical);
     }
 
     private TissuePresets() { }

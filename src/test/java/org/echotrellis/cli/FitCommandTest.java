@@ -211,7 +211,7 @@ class FitCommandTest {
     void helpShowsAnExample() {
         CliRun r = CliRun.of("fit", "--help");
         assertEquals(0, r.code());
-        assertTrue(r.out().contains("echotrellis fit decays.csv --protocol"), r.out());
+        assertTrue(r.out().contains("echotrellis.jar fit sequences/brain-mwi-32-decays.csv"), r.out());
         for (String line : r.out().split("\\R")) {
             assertTrue(line.length() <= 80, "help line longer than 80: " + line);
         }

@@ -170,7 +170,7 @@ class ImageCommandTest {
     void helpHasARunnableExample() {
         CliRun r = CliRun.of("image", "--help");
         assertEquals(0, r.code());
-        assertTrue(r.out().contains("echotrellis image sequences/brain-fse-t2-3t.yaml --phase-lines 256 \\"), r.out());
+        assertTrue(r.out().contains("echotrellis.jar image sequences/brain-fse-t2-3t.yaml \\\n      --phase-lines 256"), r.out());
         assertTrue(r.out().contains("--center-echo"), r.out());
     }
 }

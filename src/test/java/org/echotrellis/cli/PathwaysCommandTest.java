@@ -122,6 +122,6 @@ class PathwaysCommandTest {
     void helpShowsAnExample() {
         CliRun r = CliRun.of("pathways", "--help");
         assertEquals(0, r.code());
-        assertTrue(r.out().contains("echotrellis pathways sequences/knee-t2-16.yaml"));
+        assertTrue(r.out().contains("echotrellis.jar pathways sequences/knee-t2-16.yaml"));
     }
 }

@@ -34,6 +34,9 @@ class AcquisitionKeysTest {
     void shippedProtocolsWithoutTheKeysRunTheEnginesAsBefore() throws IOException {
         try (DirectoryStream<Path> ds = Files.newDirectoryStream(Path.of("sequences"))) {
             for (Path f : ds) {
+                if (f.toString().endsWith(".csv")) {
+                    continue;  // example decay tables for fit and spectrum
+                }
                 Protocol p = ProtocolReader.read(f);
                 if (p.train().isPresent() && p.acquisition() != Acquisition.none()) {
                     continue;

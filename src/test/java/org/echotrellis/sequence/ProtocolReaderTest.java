@@ -29,6 +29,9 @@ class ProtocolReaderTest {
         int n = 0;
         try (DirectoryStream<Path> ds = Files.newDirectoryStream(Path.of("sequences"))) {
             for (Path f : ds) {
+                if (f.toString().endsWith(".csv")) {
+                    continue;  // example decay tables for fit and spectrum
+                }
                 Protocol p = ProtocolReader.read(f);
                 assertTrue(p.echoCount() > 0, f.toString());
                 assertTrue(Simulator.simulate(p).size() == p.echoCount());

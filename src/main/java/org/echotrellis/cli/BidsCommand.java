@@ -88,9 +88,14 @@ public final class BidsCommand implements Callable<Integer> {
     @Option(names = "--model", paramLabel = "MODEL", defaultValue = "epg", description = "epg or mono (default: ${DEFAULT-VALUE}).")
     FitModel model;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "NaN",
+    @Option(names = "--t1-ms", paramLabel = "MS",
             description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
-    double t1Ms;
+    Double t1Ms;
+
+    /** @return the fixed T1, or NaN for the protocol tissue's */
+    double t1MsOrProtocol() {
+        return t1Ms == null ? Double.NaN : t1Ms;
+    }
 
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound of the fit (default: ${DEFAULT-VALUE}).")
     double t2MinMs;
@@ -128,10 +133,10 @@ public final class BidsCommand implements Callable<Integer> {
         Optional<ProtocolText> text = Optional.ofNullable(protocol).map(ProtocolText::read);
         text.ifPresent(ProtocolText::parse);
         Optional<FitOptions> fit = analysis == Analysis.spectrum ? Optional.empty()
-                : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(t1Ms)
+                : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(t1MsOrProtocol())
                         .withT2BoundsMs(t2MinMs, t2MaxMs)));
         Optional<SpectrumChoices> spectrum = analysis == Analysis.fit ? Optional.empty()
-                : Optional.of(new SpectrumChoices(t1Ms,
+                : Optional.of(new SpectrumChoices(t1MsOrProtocol(),
                         window == null ? List.of() : List.of(FractionWindow.parse(window))));
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
         List<MeseCollection> found = BidsLayout.find(bidsDir, participants, sessions);

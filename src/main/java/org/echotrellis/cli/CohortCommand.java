@@ -75,9 +75,14 @@ public final class CohortCommand implements Callable<Integer> {
                     + "with the sidecars' echo count and spacing.")
     java.nio.file.Path protocol;
 
-    @Option(names = "--t1-ms", paramLabel = "MS", defaultValue = "NaN",
+    @Option(names = "--t1-ms", paramLabel = "MS",
             description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
-    double t1Ms;
+    Double t1Ms;
+
+    /** @return the fixed T1, or NaN for the protocol tissue's */
+    double t1MsOrProtocol() {
+        return t1Ms == null ? Double.NaN : t1Ms;
+    }
 
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "fit: lower T2 bound (default: ${DEFAULT-VALUE}).")
     double t2MinMs;

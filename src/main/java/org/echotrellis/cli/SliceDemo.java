@@ -102,13 +102,15 @@ final class SliceDemo implements DemoSection {
                 }
             }
         }
-        String[] files = {"slice-t2-ideal.png", "slice-t2-slice-aware.png", "slice-t2-mono.png"};
-        for (int m = 0; m < 3; m++) {
-            MapPreview.writeCentralSlice(ctx.file(files[m]), maps[m], N, N, 1, "2-D phantom T2, " + names[m], "T2 (ms)",
-                    20, 220, ctx.force());
+        String[] files = {"slice-t2-ideal", "slice-t2-slice-aware", "slice-t2-mono"};
+        for (String ext : new String[] {".png", ".svg"}) {
+            for (int m = 0; m < 3; m++) {
+                MapPreview.writeCentralSlice(ctx.file(files[m] + ext), maps[m], N, N, 1, "2-D phantom T2, " + names[m],
+                        "T2 (ms)", 20, 220, ctx.force());
+            }
+            MapPreview.writeCentralSlice(ctx.file("slice-b1-slice-aware" + ext), b1Map, N, N, 1,
+                    "2-D phantom B1, slice-aware fit", "B1 scale", 0.6, 1.2, ctx.force());
         }
-        MapPreview.writeCentralSlice(ctx.file("slice-b1-slice-aware.png"), b1Map, N, N, 1,
-                "2-D phantom B1, slice-aware fit", "B1 scale", 0.6, 1.2, ctx.force());
         StringBuilder s = ctx.summary();
         s.append("## 2-D acquisition: slice profiles in T2 maps and spectra\n\n")
                 .append(String.format(Locale.ROOT, "The cylinder phantom (%d × %d, T2 40, 80 and 150 ms by row, T1 %.0f ms) "
@@ -129,7 +131,7 @@ final class SliceDemo implements DemoSection {
             }
         }
         s.append("\nFigures: `slice-t2-ideal.png`, `slice-t2-slice-aware.png`, `slice-t2-mono.png` (same colour range), "
-                + "`slice-b1-slice-aware.png`.\n\n");
+                + "`slice-b1-slice-aware.png` (and `.svg`).\n\n");
         spectra(ctx, base, slice);
     }
 

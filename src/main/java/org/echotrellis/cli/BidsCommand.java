@@ -107,6 +107,9 @@ public final class BidsCommand implements Callable<Integer> {
             description = "Spectrum: T2 window of the MWFmap (default: the spectrum command's short-T2 window for each collection's protocol).")
     String window;
 
+    @Mixin
+    ReportOption report;
+
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all cores).")
     Integer threads;
 
@@ -149,8 +152,10 @@ public final class BidsCommand implements Callable<Integer> {
         String command = CliChecks.commandLine(spec);
         BidsDerivatives.Settings settings = new BidsDerivatives.Settings(fit, spectrum, Optional.ofNullable(b1Map),
                 b1Units == FitCommand.B1Units.percent ? 0.01 : 1, n, force, command);
+        report.begin(spec, force);
         BidsDerivatives.writeDescription(outDir, command, true);
         int failed = 0;
+        List<List<Object>> rows = new java.util.ArrayList<>();
         for (MeseCollection c : found) {
             try {
                 BidsProtocol.Resolved r = BidsProtocol.resolve(c, text,
@@ -160,9 +165,12 @@ public final class BidsCommand implements Callable<Integer> {
                 List<Path> files = BidsDerivatives.run(bidsDir, c, r.protocol(), r.acquisition(), settings, outDir,
                         new StderrProgressBar(err, quiet));
                 out.printf(Locale.ROOT, "%s: %d files in %s%n", c.label(), files.size(), outDir.resolve(c.relativeDir()));
+                rows.add(reportRow(c, p, files, "done"));
             } catch (InputException e) {
                 failed++;
-                err.println("echotrellis: " + c.label() + ": " + e.getMessage().split("\\R")[0]);
+                String line = e.getMessage().split("\\R")[0];
+                err.println("echotrellis: " + c.label() + ": " + line);
+                rows.add(java.util.Arrays.asList(c.label(), "-", "-", "-", "-", "-", "failed: " + line));
             }
             out.flush();
         }
@@ -170,7 +178,34 @@ public final class BidsCommand implements Callable<Integer> {
                 failed > 0 ? ", " + failed + " failed" : "");
         out.flush();
         err.flush();
+        int done = found.size() - failed;
+        report.settings(new java.util.LinkedHashMap<>(java.util.Map.of("analysis", analysis.name(),
+                "collections", found.size())));
+        String headline = done + " of " + found.size() + " collections done" + (failed > 0 ? ", " + failed + " failed" : "");
+        report.write("bids: " + bidsDir.getFileName(), force, r -> r.section("Collections")
+                .paragraph(headline + ". T2 statistics over the voxels with a finite T2 in each collection's T2map (seconds"
+                        + " in the file, shown here in ms).")
+                .table("Collections and their T2 maps", List.of("collection", "echoes", "echo spacing (ms)",
+                        "files", "voxels with T2", "median T2 (ms) [IQR]", "status"), rows));
         return failed > 0 ? 2 : 0;
+    }
+
+    /** One row of the report: the collection, its train, and the median T2 of the map it wrote. */
+    private static List<Object> reportRow(MeseCollection c, Protocol p, List<Path> files, String status) {
+        Object echoes = p.echoCount();
+        Object esp = p.cpmg().map(t -> (Object) Tables.num(t.echoSpacingMs())).orElse("-");
+        Object voxels = "-";
+        Object median = "-";
+        for (Path f : files) {
+            if (f.getFileName().toString().endsWith("_T2map.nii.gz")) {
+                double[] v = org.echotrellis.io.Nifti.read(f).values();
+                double[] finite = java.util.Arrays.stream(v).filter(Double::isFinite).map(x -> 1000 * x).sorted().toArray();
+                org.echotrellis.io.RegionStatistics st = org.echotrellis.io.RegionStatistics.of("all", finite);
+                voxels = st.voxels();
+                median = finite.length == 0 ? "-" : String.format(Locale.ROOT, "%.1f [%.1f–%.1f]", st.p50(), st.p25(), st.p75());
+            }
+        }
+        return java.util.Arrays.asList(c.label(), echoes, esp, files.size(), voxels, median, status);
     }
 
     /** An event-list protocol keeps its own timing: its echo times must be the sidecars'. */

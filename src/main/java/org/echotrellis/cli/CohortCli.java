@@ -37,6 +37,7 @@ final class CohortCli {
         if (protocol != null) {
             protocol.parse();
         }
+        c.report.begin(c.spec, c.force);
         try (CohortSpark spark = CohortSpark.open(c.master)) {
             int taskCpus = spark.session().sparkContext().getConf().getInt("spark.task.cpus", 1);
             CohortRequest request = new CohortRequest(c.bidsDir, c.outputDir, c.participants,
@@ -54,6 +55,9 @@ final class CohortCli {
             }
             out.flush();
             err.flush();
+            c.report.settings(new java.util.LinkedHashMap<>(java.util.Map.of("analysis", analysis,
+                    "labels", c.labels == null ? "whole mask" : c.labels)));
+            c.report.write("cohort: " + c.bidsDir, c.force, page -> CohortReport.sections(page, r));
             return r.failures().isEmpty() ? 0 : CohortResult.EXIT_SUBJECTS_FAILED;
         }
     }

@@ -41,6 +41,9 @@ public final class CohortCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 
+    @Mixin
+    ReportOption report;
+
     @Spec
     CommandSpec spec;
 

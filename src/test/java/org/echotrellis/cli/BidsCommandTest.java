@@ -2,6 +2,7 @@ package org.echotrellis.cli;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
@@ -101,6 +102,27 @@ class BidsCommandTest {
         Files.writeString(root.resolve("sub-01").resolve("sub-01_MESE.json"), "{\"RefocusingFlipAngle\": 180}\n");
         Files.writeString(root.resolve("sub-02").resolve("sub-02_MESE.json"), "{\"RefocusingFlipAngle\": 180}\n");
         return root;
+    }
+
+    @Test
+    void reportListsEveryCollectionWithTheMedianT2OfItsMap() throws IOException {
+        Path root = dataset();
+        Path out = dir.resolve("derivatives-report");
+        Path html = dir.resolve("bids-report.html");
+        CliRun r = CliRun.of("bids", root.toString(), out.toString(), "participant", "--analysis", "fit",
+                "--threads", "2", "--quiet", "--report", html.toString());
+        assertEquals(0, r.code(), r.err());
+        String page = Files.readString(html);
+        assertTrue(page.contains("Collections and their T2 maps"), "table caption");
+        double[] t2 = java.util.Arrays.stream(Nifti.read(out.resolve("sub-01/anat/sub-01_T2map.nii.gz")).values())
+                .filter(Double::isFinite).map(x -> 1000 * x).sorted().toArray();
+        // median recomputed from the written map (linear interpolation between closest ranks, common practice)
+        double pos = 0.5 * (t2.length - 1);
+        int lo = (int) Math.floor(pos);
+        double median = t2[lo] + (pos - lo) * (t2[Math.min(lo + 1, t2.length - 1)] - t2[lo]);
+        assertTrue(page.contains(String.format(java.util.Locale.ROOT, "%.1f [", median)), "median T2 " + median);
+        assertTrue(page.contains("sub-01"), "collection label");
+        assertFalse(page.contains("<script src") || page.contains("http://") && page.contains("<link"), "self-contained");
     }
 
     @Test

@@ -71,9 +71,13 @@ class CohortCommandTest {
     @Test
     void cohortTableFailuresAndResume() throws Exception {
         Path out = dir.resolve("out");
-        Run first = cohort();
+        Path html = dir.resolve("cohort-report.html");
+        Run first = cohort("--report", html.toString());
         assertEquals(CohortResult.EXIT_SUBJECTS_FAILED, first.code(), first.err());
         assertTrue(first.err().contains("1 failed"), first.err());
+        String page = Files.readString(html);
+        assertTrue(page.contains("Across subjects") && page.contains("Cohort table"), "report sections");
+        assertTrue(page.contains("sub-04_echo-3_MESE.nii.gz"), "the failure is listed in the report");
 
         List<List<String>> fails = CsvText.parse(Files.readString(out.resolve("cohort-failures.csv")));
         assertEquals(2, fails.size(), fails.toString());

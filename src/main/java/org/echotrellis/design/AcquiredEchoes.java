@@ -47,10 +47,9 @@ public final class AcquiredEchoes {
     public double[] magnitudes(double[] flipsDeg, Tissue tissue) {
         CpmgTrain t = new CpmgTrain(base.echoes(), base.echoSpacingMs(), base.excitationFlipDeg(),
                 base.excitationPhaseDeg(), flipsDeg, base.refocusPhasesDeg());
-        Tissue own = tissue;
-        Protocol q = Protocol.ofTrain(protocol.name(), protocol.description(), own, protocol.b1Scale(), t,
+        Protocol q = Protocol.ofTrain(protocol.name(), protocol.description(), tissue, protocol.b1Scale(), t,
                 protocol.source(), protocol.acquisition());
-        EchoTrain e = Simulator.simulate(q, own.t1Ms(), own.t2Ms(), protocol.b1Scale());
+        EchoTrain e = Simulator.simulate(q, tissue.t1Ms(), tissue.t2Ms(), protocol.b1Scale());
         double[] m = new double[t.echoes()];
         for (int i = 0; i < m.length; i++) {
             m[i] = Math.hypot(e.re()[i], e.im()[i]);

@@ -92,11 +92,6 @@ public final class BidsCommand implements Callable<Integer> {
             description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
     Double t1Ms;
 
-    /** @return the fixed T1, or NaN for the protocol tissue's */
-    double t1MsOrProtocol() {
-        return t1Ms == null ? Double.NaN : t1Ms;
-    }
-
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound of the fit (default: ${DEFAULT-VALUE}).")
     double t2MinMs;
 
@@ -136,10 +131,10 @@ public final class BidsCommand implements Callable<Integer> {
         Optional<ProtocolText> text = Optional.ofNullable(protocol).map(ProtocolText::read);
         text.ifPresent(ProtocolText::parse);
         Optional<FitOptions> fit = analysis == Analysis.spectrum ? Optional.empty()
-                : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(t1MsOrProtocol())
+                : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(CliChecks.t1OrProtocol(t1Ms))
                         .withT2BoundsMs(t2MinMs, t2MaxMs)));
         Optional<SpectrumChoices> spectrum = analysis == Analysis.fit ? Optional.empty()
-                : Optional.of(new SpectrumChoices(t1MsOrProtocol(),
+                : Optional.of(new SpectrumChoices(CliChecks.t1OrProtocol(t1Ms),
                         window == null ? List.of() : List.of(FractionWindow.parse(window))));
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
         List<MeseCollection> found = BidsLayout.find(bidsDir, participants, sessions);

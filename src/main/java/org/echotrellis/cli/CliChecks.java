@@ -79,6 +79,14 @@ final class CliChecks {
      * Builds library settings; an input error naming a parameter by its summary key (e.g.
      * {@code t2_max_ms}) is reported under the option of the same name ({@code --t2-max-ms}).
      */
+    /**
+     * @param t1Ms the value of {@code --t1-ms}, or null when not given
+     * @return it, or NaN for "T1 of each protocol's tissue" (the library options' convention)
+     */
+    static double t1OrProtocol(Double t1Ms) {
+        return t1Ms == null ? Double.NaN : t1Ms;
+    }
+
     static <T> T asOptions(java.util.function.Supplier<T> build) {
         try {
             return build.get();

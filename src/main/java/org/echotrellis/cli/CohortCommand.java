@@ -82,11 +82,6 @@ public final class CohortCommand implements Callable<Integer> {
             description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
     Double t1Ms;
 
-    /** @return the fixed T1, or NaN for the protocol tissue's */
-    double t1MsOrProtocol() {
-        return t1Ms == null ? Double.NaN : t1Ms;
-    }
-
     @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "fit: lower T2 bound (default: ${DEFAULT-VALUE}).")
     double t2MinMs;
 

@@ -51,12 +51,22 @@ final class FitDemo implements DemoSection {
 
     /** True T2 at voxel (x, y), or NaN in the background. */
     static double t2(int x, int y) {
-        for (int r = 0; r < 3; r++) {
-            for (int c = 0; c < 3; c++) {
-                int dx = x - CENTRES[c];
-                int dy = y - CENTRES[r];
-                if (dx * dx + dy * dy <= RADIUS * RADIUS) {
-                    return T2_ROWS[r];
+        return cylinderT2(x, y, CENTRES, RADIUS, T2_ROWS);
+    }
+
+    /**
+     * True T2 of a 3 × 3 cylinder phantom: cylinders of one radius centred on every (CENTRES[c],
+     * CENTRES[r]), T2 by row.
+     *
+     * @return the T2 of the cylinder holding voxel (x, y), or NaN in the background
+     */
+    static double cylinderT2(int x, int y, int[] centres, int radius, double[] t2Rows) {
+        for (int r = 0; r < t2Rows.length; r++) {
+            for (int c = 0; c < centres.length; c++) {
+                int dx = x - centres[c];
+                int dy = y - centres[r];
+                if (dx * dx + dy * dy <= radius * radius) {
+                    return t2Rows[r];
                 }
             }
         }

@@ -185,16 +185,7 @@ final class SliceDemo implements DemoSection {
 
     /** True T2 at voxel (x, y), or NaN in the background. */
     static double t2(int x, int y) {
-        for (int r = 0; r < 3; r++) {
-            for (int c = 0; c < 3; c++) {
-                int dx = x - CENTRES[c];
-                int dy = y - CENTRES[r];
-                if (dx * dx + dy * dy <= RADIUS * RADIUS) {
-                    return T2_ROWS[r];
-                }
-            }
-        }
-        return Double.NaN;
+        return FitDemo.cylinderT2(x, y, CENTRES, RADIUS, T2_ROWS);
     }
 
     private static double median(float[] map, int row, int col) {

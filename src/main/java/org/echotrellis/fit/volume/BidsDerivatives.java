@@ -20,6 +20,7 @@ import org.echotrellis.io.ProgressReporter;
 import org.echotrellis.io.Provenance;
 import org.echotrellis.io.RunSummary;
 import org.echotrellis.io.bids.MeseCollection;
+import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolText;
 
 /**
@@ -137,8 +138,9 @@ public final class BidsDerivatives {
         List<Path> written = new ArrayList<>();
         Map<String, Object> provenance = Provenance.of(s.commandLine(), inputs, protocol.text());
         try (NiftiInput series = EchoStack.open(c.echoFiles(), c.label())) {
+            Protocol parsed = protocol.parse();
             if (s.fit().isPresent()) {
-                VolumeAnalysis a = VolumeAnalysis.fit(protocol.parse(), s.fit().get());
+                VolumeAnalysis a = VolumeAnalysis.fit(parsed, s.fit().get());
                 VolumeMaps m = a.run(series, Optional.empty(), b1, s.threads(), progress);
                 Map<String, Object> side = sidecarBase(sources, acquisition, a,
                         "EPG fit of amplitude, T2 and B1 per voxel with stimulated echoes included",
@@ -153,7 +155,7 @@ public final class BidsDerivatives {
                 written.add(summary(dir.resolve(p + "_desc-fit_summary.json"), m, c, provenance, s.force()));
             }
             if (s.spectrum().isPresent()) {
-                VolumeAnalysis a = VolumeAnalysis.spectrum(protocol.parse(), s.spectrum().get().resolve(protocol.parse()));
+                VolumeAnalysis a = VolumeAnalysis.spectrum(parsed, s.spectrum().get().resolve(parsed));
                 VolumeMaps m = a.run(series, Optional.empty(), Optional.empty(), s.threads(), progress);
                 Map<String, Object> side = sidecarBase(sources, acquisition, a,
                         "non-negative least-squares T2 spectrum on an EPG basis with refocusing-angle refinement; "

@@ -125,6 +125,43 @@ class CohortCommandTest {
         assertEquals(1, CsvText.parse(Files.readString(out.resolve("cohort-failures.csv"))).size());
     }
 
+    @Test
+    void remoteStorageIsReadAndWrittenThroughTheFileSystemApi() throws Exception {
+        // farfs:// is the local disk seen as a remote store (FarFileSystem): units are copied to the
+        // executor's scratch, outputs published by copy and rename, tables written through Hadoop
+        Path far = dir.resolve("far");
+        SyntheticCohort c = new SyntheticCohort(far.resolve("bids"), 6, 5, 2);
+        c.subject("11", null, 21);
+        c.subject("12", "pre", 22);
+        c.labels("12", "pre");
+        c.mask("11");
+        c.mask("12");
+        String in = FarFileSystem.SCHEME + "://" + far.resolve("bids").toAbsolutePath();
+        String outUri = FarFileSystem.SCHEME + "://" + far.resolve("out").toAbsolutePath();
+        CommandLine cl = Main.newCommandLine();
+        StringWriter err = new StringWriter();
+        cl.setOut(new PrintWriter(new StringWriter(), true));
+        cl.setErr(new PrintWriter(err, true));
+        int code = cl.execute("cohort", in, outUri, "--master", "local[2]", "--labels", "dseg",
+                "--mask", "derivatives/masks/sub-{sub}_mask.nii.gz");
+        assertEquals(0, code, err.toString());
+        Path out = far.resolve("out");
+        List<CohortRow> rows = table(out);
+        assertEquals(List.of("11", "12"), rows.stream().map(CohortRow::subject).distinct().sorted().toList());
+        assertTrue(rows.stream().filter(r -> r.subject().equals("12")).allMatch(r -> List.of("1", "2")
+                .contains(r.stats().region())), "the session's label image was fetched with the unit");
+        NiftiImage status = Nifti.read(out.resolve("sub-11/anat/sub-11_desc-fitstatus_dseg.nii.gz"));
+        for (int i = 0; i < status.size(); i++) {
+            assertEquals(mask[i] == 0, status.get(i) == 0, "the mask pattern was fetched: voxel " + i);
+        }
+        assertTrue(Files.isRegularFile(out.resolve("sub-12/ses-pre/anat/sub-12_ses-pre_T2map.nii.gz")));
+        assertTrue(Files.isRegularFile(out.resolve("dataset_description.json")));
+        try (Stream<Path> files = Files.walk(out)) {
+            assertTrue(files.noneMatch(f -> f.getFileName().toString().contains(".tmp-")), "no temporaries left");
+        }
+        assertEquals(rows.size(), SharedSpark.get().read().parquet(out.resolve("cohort-table.parquet").toString()).count());
+    }
+
     private static List<CohortRow> table(Path out) throws IOException {
         List<List<String>> t = CsvText.parse(Files.readString(out.resolve("cohort-table.csv")));
         assertEquals(CohortRow.COLUMNS, t.get(0));

@@ -134,8 +134,8 @@ public final class BidsCommand implements Callable<Integer> {
                 : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(CliChecks.t1OrProtocol(t1Ms))
                         .withT2BoundsMs(t2MinMs, t2MaxMs)));
         Optional<SpectrumChoices> spectrum = analysis == Analysis.fit ? Optional.empty()
-                : Optional.of(new SpectrumChoices(CliChecks.t1OrProtocol(t1Ms),
-                        window == null ? List.of() : List.of(FractionWindow.parse(window))));
+                : Optional.of(CliChecks.asOptions(() -> new SpectrumChoices(CliChecks.t1OrProtocol(t1Ms),
+                        window == null ? List.of() : List.of(FractionWindow.parse(window)))));
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
         List<MeseCollection> found = BidsLayout.find(bidsDir, participants, sessions);
         PrintWriter out = spec.commandLine().getOut();
@@ -163,7 +163,7 @@ public final class BidsCommand implements Callable<Integer> {
                 rows.add(reportRow(c, p, files, "done"));
             } catch (InputException e) {
                 failed++;
-                String line = e.getMessage().split("\\R")[0];
+                String line = CliChecks.forCommandLine(e.getMessage()).split("\\R")[0];
                 err.println("echotrellis: " + c.label() + ": " + line);
                 rows.add(java.util.Arrays.asList(c.label(), "-", "-", "-", "-", "-", "failed: " + line));
             }

@@ -29,8 +29,8 @@ final class CohortCli {
         if (c.labels != null && !c.labels.equals("dseg") && c.labels.isBlank()) {
             throw new InputException("--labels must be 'dseg' or a file pattern below BIDS_DIR, got an empty value");
         }
-        FitOptions fit = FitOptions.DEFAULT.withT1Ms(CliChecks.t1OrProtocol(c.t1Ms)).withT2BoundsMs(c.t2MinMs, c.t2MaxMs)
-                .withB1Bounds(c.b1Min, c.b1Max);
+        FitOptions fit = CliChecks.asOptions(() -> FitOptions.DEFAULT.withT1Ms(CliChecks.t1OrProtocol(c.t1Ms))
+                .withT2BoundsMs(c.t2MinMs, c.t2MaxMs).withB1Bounds(c.b1Min, c.b1Max));
         // a cohort's protocols are read per subject: each takes its own spectrum defaults
         SpectrumChoices spectrum = new SpectrumChoices(CliChecks.t1OrProtocol(c.t1Ms), List.of());
         ProtocolText protocol = c.protocol == null ? null : ProtocolText.read(c.protocol);

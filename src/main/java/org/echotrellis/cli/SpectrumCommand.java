@@ -149,7 +149,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         Checks.require(image || b1Map == null, "--b1-map applies to image input only; DATA " + data + " is a table");
         Checks.require(b1Map == null || refocusDeg == null, "--b1-map and --refocus-deg exclude each other; give one");
         refuseIgnored(image, options);
-        VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
+        VolumeAnalysis analysis = CliChecks.asOptions(() -> VolumeAnalysis.spectrum(p, options));
         BasisCache cache = analysis.basisCache().orElseThrow();
         Map<String, Object> settings = settings(p, analysis);
         if (image) {
@@ -194,6 +194,10 @@ public final class SpectrumCommand implements Callable<Integer> {
     SpectrumOptions options(Protocol p) {
         Checks.require(refocusDeg == null || refocusSearch == null,
                 "--refocus-deg and --refocus-search-deg exclude each other; give one");
+        return CliChecks.asOptions(() -> fromOptions(p));
+    }
+
+    private SpectrumOptions fromOptions(Protocol p) {
         SpectrumOptions d = SpectrumOptions.defaults(p);
         double lo = t2MinMs != null ? t2MinMs : d.grid().minMs();
         double hi = t2MaxMs != null ? t2MaxMs : d.grid().maxMs();

@@ -163,7 +163,8 @@ public final class BidsCommand implements Callable<Integer> {
                 rows.add(reportRow(c, p, files, "done"));
             } catch (InputException e) {
                 failed++;
-                String line = CliChecks.forCommandLine(e.getMessage()).split("\\R")[0];
+                String line = CliChecks.optionNames(CliChecks.forCommandLine(e.getMessage()), "t1_ms", "fraction_window_ms")
+                        .split("\\R")[0];
                 err.println("echotrellis: " + c.label() + ": " + line);
                 rows.add(java.util.Arrays.asList(c.label(), "-", "-", "-", "-", "-", "failed: " + line));
             }

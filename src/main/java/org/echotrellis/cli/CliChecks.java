@@ -84,6 +84,14 @@ final class CliChecks {
     static final String[] FIT_KEYS = {"t1_ms", "t2_min_ms", "t2_max_ms", "t2_bins", "b1_min", "b1_max", "noise_sigma",
         "misfit_increase", "fraction_window_ms", "refocus_search_deg", "refocus_deg", "regularisation"};
 
+    /**
+     * Library keys of the settings of a dataset run ({@code bids}, {@code cohort}) that a collection or
+     * subject can refuse: the spectrum grid is given there by {@code --spectrum-t2-min-ms} and
+     * {@code --spectrum-t2-max-ms}.
+     */
+    static final String[] DATASET_KEYS = {"t1_ms", "fraction_window_ms", "noise_sigma",
+        "t2_min_ms=--spectrum-t2-min-ms", "t2_max_ms=--spectrum-t2-max-ms"};
+
     /** Builds fit or spectrum settings; see {@link #asOptions(java.util.function.Supplier, String...)} with {@link #FIT_KEYS}. */
     static <T> T asOptions(java.util.function.Supplier<T> build) {
         return asOptions(build, FIT_KEYS);

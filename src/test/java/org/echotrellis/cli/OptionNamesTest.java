@@ -27,7 +27,9 @@ class OptionNamesTest {
         // in a path or a longer name, or an option already, the key stays
         assertEquals("/data/t1_ms/x.csv: my_t1_ms, t1_ms.yaml, --t1-ms",
                 CliChecks.optionNames("/data/t1_ms/x.csv: my_t1_ms, t1_ms.yaml, --t1-ms", "t1_ms"));
-        assertEquals("--b1-map given twice", CliChecks.optionNames("b1 given twice", "b1=--b1-map"));
+        // bids and cohort give the spectrum grid by options of other names
+        assertEquals("--spectrum-t2-max-ms must be > --spectrum-t2-min-ms (500.0 ms), got 300.0",
+                CliChecks.optionNames("t2_max_ms must be > t2_min_ms (500.0 ms), got 300.0", CliChecks.DATASET_KEYS));
     }
 
     @Test

@@ -135,7 +135,8 @@ public final class BidsCommand implements Callable<Integer> {
                 rows.add(reportRow(c, p, files, "done"));
             } catch (InputException e) {
                 failed++;
-                String line = e.getMessage().split("\\R")[0];
+                String line = CliChecks.optionNames(CliChecks.forCommandLine(e.getMessage()), CliChecks.DATASET_KEYS)
+                        .split("\\R")[0];
                 err.println("echotrellis: " + c.label() + ": " + line);
                 rows.add(java.util.Arrays.asList(c.label(), "-", "-", "-", "-", "-", "failed: " + line));
             }

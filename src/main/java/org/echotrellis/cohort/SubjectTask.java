@@ -83,7 +83,7 @@ final class SubjectTask {
                 rows.add(CohortRow.parse(t.get(i)));
             } catch (IllegalArgumentException e) {
                 throw new UncheckedIOException(new IOException(stats + " line " + (i + 1) + ": " + e.getMessage()
-                        + " (remove the subject's directory, or rerun with --force)"));
+                        + " (remove the subject's directory, or redo it with force)"));
             }
         }
         return rows;

@@ -14,7 +14,7 @@ import org.echotrellis.Checks;
 public record SarReference(double sarWPerKg, double powerUt2) {
     /** Validates both values. */
     public SarReference {
-        Checks.positive("--reference-sar-w-per-kg", sarWPerKg, null);
+        Checks.positive("reference_sar_w_per_kg", sarWPerKg, null);
         Checks.positive("reference RF power", powerUt2, null);
     }
 

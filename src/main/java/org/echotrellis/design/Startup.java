@@ -53,7 +53,7 @@ public sealed interface Startup {
     record Ramp(int length) implements Startup {
         /** Validates the length. */
         public Ramp {
-            Checks.inRange("--startup ramp length", length, 1, 64, null);
+            Checks.inRange("startup ramp length", length, 1, 64, null);
         }
 
         @Override
@@ -85,9 +85,9 @@ public sealed interface Startup {
             try {
                 return new Ramp(Integer.parseInt(s.substring(5)));
             } catch (NumberFormatException e) {
-                throw new InputException("--startup " + spec + ": N must be an integer; allowed: none, alsop, ramp:N");
+                throw new InputException("startup " + spec + ": N must be an integer; allowed: none, alsop, ramp:N");
             }
         }
-        throw new InputException("--startup " + spec + " is not understood; allowed: none, alsop, ramp:N");
+        throw new InputException("startup " + spec + " is not understood; allowed: none, alsop, ramp:N");
     }
 }

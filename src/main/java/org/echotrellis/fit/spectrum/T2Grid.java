@@ -45,13 +45,13 @@ public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Se
         return new T2Grid(lo, hi, Math.max(2, Math.min(MAX_BINS, bins)));
     }
 
-    /** Validates the grid; messages name the command-line options. */
+    /** Validates the grid; messages name the parameters by their keys ({@code t2_min_ms}, ...). */
     public T2Grid {
-        Checks.positive("--t2-min-ms", minMs, null);
-        Checks.positive("--t2-max-ms", maxMs, null);
+        Checks.positive("t2_min_ms", minMs, null);
+        Checks.positive("t2_max_ms", maxMs, null);
         Checks.require(maxMs > minMs,
-                "--t2-max-ms must be > --t2-min-ms (" + minMs + " ms), got " + maxMs);
-        Checks.inRange("--t2-bins", bins, 2, MAX_BINS, null);
+                "t2_max_ms must be > t2_min_ms (" + minMs + " ms), got " + maxMs);
+        Checks.inRange("t2_bins", bins, 2, MAX_BINS, null);
     }
 
     /** @return a new array of the grid T2 values in ms, ascending */

@@ -19,7 +19,8 @@ import org.echotrellis.io.NiftiHeader;
  * s, RepetitionTime, FlipAngle 90, RefocusingFlipAngle 180). A central box of tissue (a given
  * fraction of each axis) holds CPMG decays of the EPG engine with T2 40–120 ms and B1 0.8–1.1
  * varying smoothly across the box, amplitude 1000 and Rician noise (σ 5); every other voxel is
- * exactly 0 in all echoes, which both analyses mark invalid without fitting. The memory a task
+ * exactly 0 in all echoes, which both analyses mark invalid without fitting. The box is also written
+ * as {@code sub-01_desc-brain_mask.nii.gz} (uint8, for {@code cohort --mask mask}). The memory a task
  * needs does not depend on the tissue's size (maps and slabs span the whole grid); the run time does.
  *
  * <pre>
@@ -104,12 +105,13 @@ public final class CohortMemorySeries {
         }
         NiftiHeader h = NiftiHeader.create(NiftiDatatype.FLOAT32, nx, ny, nz);
         float[] volume = new float[nx * ny * nz];
+        for (int t = 0; t < nt; t++) {
+            volume[index(t, lo, bx, by, nx, ny)] = 1;
+        }
+        Nifti.write(anat.resolve("sub-01_desc-brain_mask.nii.gz"), h.withDatatype(NiftiDatatype.UINT8), volume, false);
         for (int k = 0; k < ECHOES; k++) {
             for (int t = 0; t < nt; t++) {
-                int x = lo[0] + t % bx;
-                int y = lo[1] + (t / bx) % by;
-                int z = lo[2] + t / (bx * by);
-                volume[x + nx * (y + ny * z)] = decays[t * ECHOES + k];
+                volume[index(t, lo, bx, by, nx, ny)] = decays[t * ECHOES + k];
             }
             String name = "sub-01_echo-" + (k + 1) + "_MESE";
             Nifti.write(anat.resolve(name + ".nii.gz"), h, volume, false);
@@ -118,6 +120,14 @@ public final class CohortMemorySeries {
                     (k + 1) * ESP_MS / 1000));
         }
         return nt;
+    }
+
+    /** Linear index in the volume of tissue voxel {@code t} of a box of bx × by × … starting at lo. */
+    private static int index(int t, int[] lo, int bx, int by, int nx, int ny) {
+        int x = lo[0] + t % bx;
+        int y = lo[1] + (t / bx) % by;
+        int z = lo[2] + t / (bx * by);
+        return x + nx * (y + ny * z);
     }
 
     /** Standard normal by Box–Muller (Box &amp; Muller 1958). */

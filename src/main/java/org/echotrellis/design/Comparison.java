@@ -39,7 +39,9 @@ public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes,
      * Simulates a tissue under a schedule and under all-180° refocusing.
      *
      * @param problem the train (its tissue is replaced)
-     * @param name tissue name @param t1Ms T1 @param t2Ms T2
+     * @param name tissue name
+     * @param t1Ms T1
+     * @param t2Ms T2
      * @param flipsDeg nominal refocusing flips (not modified)
      * @return the comparison
      */

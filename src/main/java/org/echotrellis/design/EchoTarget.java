@@ -29,7 +29,11 @@ public sealed interface EchoTarget {
     /** @return the specification in option syntax, for reports */
     String spec();
 
-    /** The same level at every echo. @param level amplitude in [0, 1] */
+    /**
+     * The same level at every echo.
+     *
+     * @param level amplitude in [0, 1]
+     */
     record Constant(double level) implements EchoTarget {
         /** Validates the level. */
         public Constant {
@@ -49,7 +53,12 @@ public sealed interface EchoTarget {
         }
     }
 
-    /** A straight line from the first to the last echo. @param first echo 1 @param last echo N */
+    /**
+     * A straight line from the first to the last echo.
+     *
+     * @param first echo 1
+     * @param last echo N
+     */
     record Ramp(double first, double last) implements EchoTarget {
         /** Validates both ends. */
         public Ramp {
@@ -103,7 +112,12 @@ public sealed interface EchoTarget {
         }
     }
 
-    /** Explicit amplitudes, one per echo. @param values amplitudes @param source file name */
+    /**
+     * Explicit amplitudes, one per echo.
+     *
+     * @param values amplitudes
+     * @param source file name
+     */
     record Listed(double[] values, String source) implements EchoTarget {
         /** Copies and validates the values. */
         public Listed {

@@ -12,7 +12,7 @@ package org.echotrellis.design;
  *                             or 0 when all are reached
  * @param unreachableEchoes number of echoes that miss their target
  */
-public record Inversion(double[] flipsDeg, double[] predicted, double[] effectiveTarget, int startupEchoes,
+record Inversion(double[] flipsDeg, double[] predicted, double[] effectiveTarget, int startupEchoes,
                         int firstUnreachableEcho, int unreachableEchoes) {
     /** Copies the arrays. */
     public Inversion {

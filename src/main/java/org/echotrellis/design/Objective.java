@@ -34,7 +34,11 @@ public sealed interface Objective {
     /** @return highest echo index the objective reads */
     int lastEcho();
 
-    /** Signal at one echo. @param echo 1-based echo index */
+    /**
+     * Magnitude of the design tissue's echo at one echo.
+     *
+     * @param echo 1-based echo index
+     */
     record SignalAt(int echo) implements Objective {
         /** Validates the index. */
         public SignalAt {
@@ -52,7 +56,12 @@ public sealed interface Objective {
         }
     }
 
-    /** Smallest echo over a window. @param from first echo @param to last echo (inclusive) */
+    /**
+     * Smallest echo magnitude of the design tissue over a window of echoes.
+     *
+     * @param from first echo of the window, 1-based
+     * @param to   last echo of the window, 1-based and inclusive
+     */
     record MinOver(int from, int to) implements Objective {
         /** Validates the window. */
         public MinOver {
@@ -74,9 +83,13 @@ public sealed interface Objective {
     /**
      * Contrast between two tissues at one echo.
      *
-     * @param echo 1-based echo index
-     * @param nameA first tissue @param t1A its T1 in ms @param t2A its T2 in ms
-     * @param nameB second tissue @param t1B its T1 in ms @param t2B its T2 in ms
+     * @param echo  1-based echo index
+     * @param nameA first tissue's name
+     * @param t1A   first tissue's T1 in ms (+Infinity for none)
+     * @param t2A   first tissue's T2 in ms (+Infinity for none)
+     * @param nameB second tissue's name
+     * @param t1B   second tissue's T1 in ms (+Infinity for none)
+     * @param t2B   second tissue's T2 in ms (+Infinity for none)
      */
     record Contrast(int echo, String nameA, double t1A, double t2A, String nameB, double t1B, double t2B)
             implements Objective {
@@ -106,7 +119,9 @@ public sealed interface Objective {
      * @param echo 1-based echo at k = 0
      * @param lines phase-encoding lines (a multiple of {@code echoes})
      * @param echoes echoes of the train
-     * @param name tissue @param t1 its T1 in ms @param t2 its T2 in ms
+     * @param name tissue name
+     * @param t1 the tissue's T1 in ms (+Infinity for none)
+     * @param t2 the tissue's T2 in ms (+Infinity for none)
      * @param minSignal smallest acceptable centre weight (0 for none)
      * @param maxSidelobe largest acceptable side lobe relative to the PSF peak
      */
@@ -146,8 +161,12 @@ public sealed interface Objective {
      * @param lines phase-encoding lines (a multiple of {@code echoes})
      * @param echoes echoes of the train
      * @param maxFwhmPx largest allowed FWHM in px (≥ 1, the delta)
-     * @param nameA first tissue @param t1A its T1 in ms @param t2A its T2 in ms
-     * @param nameB second tissue @param t1B its T1 in ms @param t2B its T2 in ms
+     * @param nameA first tissue's name
+     * @param t1A first tissue's T1 in ms (+Infinity for none)
+     * @param t2A first tissue's T2 in ms (+Infinity for none)
+     * @param nameB second tissue's name
+     * @param t1B second tissue's T1 in ms (+Infinity for none)
+     * @param t2B second tissue's T2 in ms (+Infinity for none)
      */
     record ContrastAtWidth(int echo, int lines, int echoes, double maxFwhmPx, String nameA, double t1A, double t2A,
                            String nameB, double t1B, double t2B) implements Objective {

@@ -11,7 +11,7 @@ package org.echotrellis.design;
  * @param constantObjective objective value of the constant schedule
  * @param evaluations objective evaluations used by the optimiser
  */
-public record OptimizedSchedule(double[] flipsDeg, double[] knotsDeg, double objective, double constantFlipDeg,
+record OptimizedSchedule(double[] flipsDeg, double[] knotsDeg, double objective, double constantFlipDeg,
                                 double constantObjective, int evaluations) {
     /** Copies the arrays. */
     public OptimizedSchedule {

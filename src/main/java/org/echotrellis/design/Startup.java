@@ -49,7 +49,11 @@ public sealed interface Startup {
         }
     }
 
-    /** Blended ramp over the first echoes. @param length number of echoes (1 to 64) */
+    /**
+     * Blended ramp over the first echoes.
+     *
+     * @param length number of echoes (1 to 64)
+     */
     record Ramp(int length) implements Startup {
         /** Validates the length. */
         public Ramp {

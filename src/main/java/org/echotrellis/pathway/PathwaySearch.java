@@ -77,7 +77,7 @@ public final class PathwaySearch {
      * @param limits search limits
      * @return the largest pathways of that echo and the unexplained rest
      */
-    public TopPathways find(Schedule s, int echo, double t1Ms, double t2Ms, double b1, Limits limits) {
+    TopPathways find(Schedule s, int echo, double t1Ms, double t2Ms, double b1, Limits limits) {
         Checks.inRange("echo", echo + 1, 1, s.echoCount(), null);
         ClassDecomposition d = new ClassTracker().decompose(s, t1Ms, t2Ms, b1);
         return find(s, echo, t1Ms, t2Ms, b1, limits, d.echoRe(echo), d.echoIm(echo));

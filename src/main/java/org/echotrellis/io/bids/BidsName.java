@@ -13,7 +13,7 @@ import java.util.Optional;
  * @param suffix the suffix
  * @param extension the extension with its leading dot
  */
-public record BidsName(Map<String, String> entities, String suffix, String extension) {
+record BidsName(Map<String, String> entities, String suffix, String extension) {
 
     /** Copies. */
     public BidsName {

@@ -35,7 +35,11 @@ public sealed interface EchoTarget {
      * @param level amplitude in [0, 1]
      */
     record Constant(double level) implements EchoTarget {
-        /** Validates the level. */
+        /**
+         * Validates the level.
+         *
+         * @param level amplitude in [0, 1]
+         */
         public Constant {
             checkLevel("constant level", level);
         }
@@ -60,7 +64,12 @@ public sealed interface EchoTarget {
      * @param last echo N
      */
     record Ramp(double first, double last) implements EchoTarget {
-        /** Validates both ends. */
+        /**
+         * Validates both ends.
+         *
+         * @param first echo 1
+         * @param last echo N
+         */
         public Ramp {
             checkLevel("ramp start", first);
             checkLevel("ramp end", last);
@@ -88,7 +97,13 @@ public sealed interface EchoTarget {
      * @param start amplitude at echo 1, or NaN for the ideal 180° first echo of the design tissue
      */
     record Decay(double pseudoT2Ms, double start) implements EchoTarget {
-        /** Validates the decay constant and start. */
+        /**
+         * Validates the decay constant and start.
+         *
+         * @param pseudoT2Ms decay constant in ms
+         * @param start amplitude at echo 1, or NaN for the ideal 180° first echo of the design tissue
+         * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+         */
         public Decay {
             Checks.positiveOrInfinite("--target decay pseudo-T2 (ms)", pseudoT2Ms, null);
             if (!Double.isNaN(start)) {
@@ -119,7 +134,12 @@ public sealed interface EchoTarget {
      * @param source file name
      */
     record Listed(double[] values, String source) implements EchoTarget {
-        /** Copies and validates the values. */
+        /**
+         * Copies and validates the values.
+         *
+         * @param values amplitudes
+         * @param source file name
+         */
         public Listed {
             values = values.clone();
             for (int i = 0; i < values.length; i++) {

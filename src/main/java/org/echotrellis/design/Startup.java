@@ -55,7 +55,12 @@ public sealed interface Startup {
      * @param length number of echoes (1 to 64)
      */
     record Ramp(int length) implements Startup {
-        /** Validates the length. */
+        /**
+         * Validates the length.
+         *
+         * @param length number of echoes (1 to 64)
+         * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+         */
         public Ramp {
             Checks.inRange("--startup ramp length", length, 1, 64, null);
         }

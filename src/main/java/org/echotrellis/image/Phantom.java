@@ -18,7 +18,15 @@ import org.echotrellis.InputException;
  * @param description a short description for captions
  */
 public record Phantom(int rows, int cols, int[] region, String description) {
-    /** Validates and copies. */
+    /**
+     * Validates and copies.
+     *
+     * @param rows number of rows (phase-encoding direction)
+     * @param cols number of columns (read-out direction)
+     * @param region tissue index of every pixel, or −1
+     * @param description a short description for captions
+     * @throws IllegalArgumentException if the values are inconsistent
+     */
     public Phantom {
         if (rows < 1 || cols < 1 || region.length != rows * cols) {
             throw new IllegalArgumentException("phantom of " + rows + " x " + cols + " needs " + rows * cols

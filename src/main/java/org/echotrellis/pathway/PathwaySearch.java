@@ -36,7 +36,14 @@ public final class PathwaySearch {
      * @param maxEntries cap on stored partial pathways (memory bound)
      */
     public record Limits(int top, double minAmplitude, int maxEntries) {
-        /** Validates the limits. */
+        /**
+         * Validates the limits.
+         *
+         * @param top number of pathways wanted (1..10000)
+         * @param minAmplitude pathways smaller than this (units of M0) are not followed (&ge; 0)
+         * @param maxEntries cap on stored partial pathways (memory bound)
+         * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+         */
         public Limits {
             Checks.inRange("top", top, 1, 10_000, null);
             Checks.inRange("min_amplitude", minAmplitude, 0, 1, null);

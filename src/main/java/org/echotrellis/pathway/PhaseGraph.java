@@ -15,7 +15,15 @@ import java.util.List;
  */
 public record PhaseGraph(List<Segment> segments, List<Pulse> pulses, List<EchoMark> echoes, double threshold,
                          int maxOrder) {
-    /** Copies the lists. */
+    /**
+     * Copies the lists.
+     *
+     * @param segments the state segments, in time order
+     * @param pulses the RF pulses
+     * @param echoes the echo read-outs
+     * @param threshold magnitude below which states were left out (units of M0)
+     * @param maxOrder largest |order| included
+     */
     public PhaseGraph {
         segments = List.copyOf(segments);
         pulses = List.copyOf(pulses);

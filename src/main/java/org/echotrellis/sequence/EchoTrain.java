@@ -12,7 +12,21 @@ import java.util.List;
  */
 public record EchoTrain(List<String> labels, double[] timesMs, double[] re, double[] im) {
 
-    /** Copies. */
+    /**
+
+     * Copies.
+
+     *
+
+     * @param labels echo labels
+
+     * @param timesMs echo times in ms from the first RF pulse
+
+     * @param re real parts
+
+     * @param im imaginary parts
+
+     */
     public EchoTrain {
         labels = List.copyOf(labels);
         timesMs = timesMs.clone();

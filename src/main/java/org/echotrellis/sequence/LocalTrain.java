@@ -19,7 +19,25 @@ package org.echotrellis.sequence;
 public record LocalTrain(double weight, double excitationFlipDeg, double excitationPhaseDeg, double[] refocusFlipsDeg,
                          double[] refocusPhasesDeg, double[] echoPhaseRad) {
 
-    /** Copies. */
+    /**
+
+     * Copies.
+
+     *
+
+     * @param weight integration weight times the steady-state longitudinal magnetization before the excitation
+
+     * @param excitationFlipDeg local excitation flip
+
+     * @param excitationPhaseDeg local excitation phase
+
+     * @param refocusFlipsDeg local refocusing flips
+
+     * @param refocusPhasesDeg local refocusing phases φ'
+
+     * @param echoPhaseRad Ψ<sub>n</sub> per echo
+
+     */
     public LocalTrain {
         refocusFlipsDeg = refocusFlipsDeg.clone();
         refocusPhasesDeg = refocusPhasesDeg.clone();

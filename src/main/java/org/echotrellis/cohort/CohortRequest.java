@@ -30,33 +30,19 @@ public record CohortRequest(String bidsDir, String outputDir, List<String> parti
     private static final long serialVersionUID = 1L;
 
     /**
-
      * Copies the list; checks that at least one analysis is requested.
-
      *
-
      * @param bidsDir the BIDS dataset (local path or URI)
-
      * @param outputDir the derivatives dataset (local path or URI)
-
      * @param participants subject labels to process; empty for all
-
      * @param fit the fit settings, or null for no fit
-
      * @param spectrum the spectrum settings, or null for no spectrum
-
      * @param protocol a protocol file supplying what sidecars cannot, or null
-
      * @param labels {@code dseg}, a label-image pattern, or null for whole-mask rows
-
      * @param force redo units whose outputs exist
-
      * @param threadsPerTask worker threads of one task's volume pipeline (the cores a task holds)
-
      * @param commandLine the command line, for the derivatives' provenance
-
      * @throws IllegalArgumentException if the values are inconsistent
-
      */
     public CohortRequest {
         participants = List.copyOf(participants);

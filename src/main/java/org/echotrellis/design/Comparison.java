@@ -20,23 +20,14 @@ public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes,
     public static final String ACQUISITION = "acquisition";
 
     /**
-
      * Copies the arrays.
-
      *
-
      * @param name tissue name
-
      * @param t1Ms T1 in ms
-
      * @param t2Ms T2 in ms
-
      * @param echoes |echo| per echo under the schedule
-
      * @param echoes180 |echo| per echo under all-180° refocusing
-
      * @param echoModel {@link #IDEAL} or {@link #ACQUISITION}: which model gave the echoes
-
      */
     public Comparison {
         echoes = echoes.clone();

@@ -22,31 +22,18 @@ public record DesignProblem(String tissueName, int echoes, double echoSpacingMs,
     public static final int MAX_ECHOES = 4096;
 
     /**
-
      * Validates every field; bad values raise {@link org.echotrellis.InputException}.
-
      *
-
      * @param tissueName label of the design tissue (for reports)
-
      * @param echoes number of echoes (1 to 4096)
-
      * @param echoSpacingMs echo spacing in ms
-
      * @param excitationFlipDeg nominal excitation flip in degrees
-
      * @param t1Ms design-tissue T1 in ms (may be +Infinity)
-
      * @param t2Ms design-tissue T2 in ms (may be +Infinity)
-
      * @param b1Scale transmit scale applied to every flip (1 = nominal)
-
      * @param minFlipDeg lowest allowed nominal refocusing flip, within [0, 180]
-
      * @param maxFlipDeg highest allowed nominal refocusing flip, within [minFlipDeg, 180]
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public DesignProblem {
         Checks.inRange("echoes", echoes, 1, MAX_ECHOES, null);

@@ -36,25 +36,15 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
     public static final double B1RMS_WINDOW_MS = 10_000;
 
     /**
-
      * Validates durations, TR and slice count.
-
      *
-
      * @param refocusShape envelope of every refocusing pulse
-
      * @param refocusMs duration of every refocusing pulse in ms
-
      * @param excitationShape envelope of the excitation pulse
-
      * @param excitationMs duration of the excitation pulse in ms
-
      * @param trMs repetition time in ms, or NaN when unknown (no B1+rms then)
-
      * @param slices number of trains (e.g. slices) played per TR (≥ 1)
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public RfExposure {
         Checks.inRange("--pulse-ms", refocusMs, 1e-3, 100, null);

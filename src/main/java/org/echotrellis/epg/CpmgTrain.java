@@ -24,25 +24,15 @@ public record CpmgTrain(int echoes, double echoSpacingMs, double excitationFlipD
     public static final int MAX_ECHOES = 4096;
 
     /**
-
      * Validates and copies.
-
      *
-
      * @param echoes number of echoes (= refocusing pulses), 1 to {@link #MAX_ECHOES}
-
      * @param echoSpacingMs echo spacing ESP in ms
-
      * @param excitationFlipDeg excitation flip in degrees
-
      * @param excitationPhaseDeg excitation RF phase in degrees
-
      * @param refocusFlipsDeg refocusing flip per pulse in degrees (length = echoes)
-
      * @param refocusPhasesDeg refocusing RF phase per pulse in degrees (length = echoes)
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public CpmgTrain {
         Checks.inRange("echoes", echoes, 1, MAX_ECHOES, null);

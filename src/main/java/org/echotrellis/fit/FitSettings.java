@@ -25,35 +25,20 @@ public record FitSettings(Protocol protocol, double t1Ms, double t2MinMs, double
                           boolean fold, double noiseSigma, boolean monoOffset, boolean monoSkipFirst) {
 
     /**
-
      * Validates.
-
      *
-
      * @param protocol the acquisition; must be a CPMG train ({@link Protocol#cpmg()})
-
      * @param t1Ms fixed T1 in ms (the echo train depends weakly on it; Lebel &amp; Wilman 2010)
-
      * @param t2MinMs lower T2 bound in ms
-
      * @param t2MaxMs upper T2 bound in ms
-
      * @param b1Min lower B1 bound
-
      * @param b1Max upper B1 bound (before folding)
-
      * @param fold report the folded B1 where the train is symmetric about a refocusing angle of 180°
-
      *        (constant refocusing, no slice selection): α and 360° − α give identical magnitude trains
-
      * @param noiseSigma channel noise σ for the Rician mean model, or NaN for plain least squares
-
      * @param monoOffset fit a constant offset in the mono-exponential model
-
      * @param monoSkipFirst drop the first echo in the mono-exponential model
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public FitSettings {
         Checks.positiveOrInfinite("--t1-ms", t1Ms, null);

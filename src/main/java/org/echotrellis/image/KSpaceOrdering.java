@@ -36,21 +36,13 @@ public record KSpaceOrdering(int lines, int echoes, Kind kind, int centerEcho) {
     }
 
     /**
-
      * Validates.
-
      *
-
      * @param lines number of phase-encoding lines L
-
      * @param echoes echoes per train E
-
      * @param kind ordering rule
-
      * @param centerEcho 1-based echo placed at k = 0 for rotated linear ordering, or 0 for none
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public KSpaceOrdering {
         Checks.inRange("--phase-lines", lines, 1, MAX_LINES, null);

@@ -14,19 +14,12 @@ import java.util.List;
 public record DecayTable(String source, List<String> names, double[] echoTimesMs, double[][] decays) {
 
     /**
-
      * Copies.
-
      *
-
      * @param source file name for messages
-
      * @param names column names of the decays (header row, without the echo-time column)
-
      * @param echoTimesMs echo times in ms, strictly increasing
-
      * @param decays decays[c][n] = value of decay c at echo n
-
      */
     public DecayTable {
         names = List.copyOf(names);

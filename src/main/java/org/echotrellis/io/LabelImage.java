@@ -25,19 +25,12 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
     public static final int MAX_SIDE = 4096;
 
     /**
-
      * Copies.
-
      *
-
      * @param rows number of rows (y)
-
      * @param cols number of columns (x)
-
      * @param labels label of every pixel
-
      * @param source file name (and slice) for messages
-
      */
     public LabelImage {
         labels = labels.clone();

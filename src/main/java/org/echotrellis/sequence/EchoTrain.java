@@ -13,19 +13,12 @@ import java.util.List;
 public record EchoTrain(List<String> labels, double[] timesMs, double[] re, double[] im) {
 
     /**
-
      * Copies.
-
      *
-
      * @param labels echo labels
-
      * @param timesMs echo times in ms from the first RF pulse
-
      * @param re real parts
-
      * @param im imaginary parts
-
      */
     public EchoTrain {
         labels = List.copyOf(labels);

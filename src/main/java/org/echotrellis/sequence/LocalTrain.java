@@ -20,21 +20,13 @@ public record LocalTrain(double weight, double excitationFlipDeg, double excitat
                          double[] refocusPhasesDeg, double[] echoPhaseRad) {
 
     /**
-
      * Copies.
-
      *
-
      * @param weight integration weight times the steady-state longitudinal magnetization before the excitation
-
      * @param excitationFlipDeg local excitation flip
-
      * @param excitationPhaseDeg local excitation phase
-
      * @param refocusFlipsDeg local refocusing flips
-
      * @param refocusPhasesDeg local refocusing phases φ'
-
      * @param echoPhaseRad Ψ<sub>n</sub> per echo
 
      */

@@ -28,31 +28,18 @@ public record Protocol(String name, String description, Tissue tissue, double b1
     public static final int MAX_EVENTS = 100_000;
 
     /**
-
      * Validates and copies.
-
      *
-
      * @param name protocol name
-
      * @param description free text
-
      * @param tissue default tissue
-
      * @param b1Scale default flip-angle scale (1 = nominal)
-
      * @param events the event list
-
      * @param train the shorthand echo train, when the protocol was written in that form
-
      * @param source where the protocol came from (file path or "built-in")
-
      * @param acquisition pulse shapes, slice selection, repetition time and crushers of the shorthand train
-
      *     ({@link Acquisition#none()} for event lists and for trains without those keys)
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public Protocol {
         name = name == null ? "" : name;

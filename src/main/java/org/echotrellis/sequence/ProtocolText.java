@@ -23,19 +23,12 @@ public record ProtocolText(String text, String source, boolean yaml) implements 
     private static final long serialVersionUID = 1L;
 
     /**
-
      * Validates.
-
      *
-
      * @param text the YAML or JSON document
-
      * @param source the name used in messages (usually the file path)
-
      * @param yaml true for YAML, false for JSON
-
      * @throws IllegalArgumentException if the values are inconsistent
-
      */
     public ProtocolText {
         if (text == null) {

@@ -18,23 +18,15 @@ public record Tissue(String name, double t1Ms, double t2Ms, double diffusivityMm
     public static final double MAX_DIFFUSIVITY_MM2_PER_S = 0.1;
 
     /**
-
      * Validates.
-
      *
-
      * @param name a name (preset name or free text; may be empty)
-
      * @param t1Ms longitudinal relaxation time T1 in ms
-
      * @param t2Ms transverse relaxation time T2 in ms
-
      * @param diffusivityMm2PerS apparent diffusion coefficient D in mm²/s (0 = no diffusion); it acts only
 
      *     where the protocol has a {@link Crusher}
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public Tissue {
         name = name == null ? "" : name;

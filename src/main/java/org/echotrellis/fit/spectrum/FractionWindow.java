@@ -32,17 +32,11 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
     private static final double EDGE = 1e-9;
 
     /**
-
      * Validates LO &lt; HI, both finite and positive.
-
      *
-
      * @param loMs lower edge in ms
-
      * @param hiMs upper edge in ms
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public FractionWindow {
         Checks.positive("--fraction-window-ms LO", loMs, null);

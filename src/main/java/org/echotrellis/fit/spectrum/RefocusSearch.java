@@ -24,19 +24,12 @@ public record RefocusSearch(double loDeg, double hiDeg, int count) implements ja
     public static final double COARSE_STEP_DEG = 15;
 
     /**
-
      * Validates the range.
-
      *
-
      * @param loDeg smallest angle in degrees, (0, 360]
-
      * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 360
-
      * @param count number of equally spaced coarse angles (1 = fixed angle loDeg, else ≥ 3)
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public RefocusSearch {
         Checks.inRange("--refocus-search-deg LO", loDeg, 1e-6, 360, null);

@@ -19,15 +19,10 @@ public record SpectrumChoices(double t1Ms, List<FractionWindow> windows) impleme
     public static final SpectrumChoices PROTOCOL_DEFAULTS = new SpectrumChoices(Double.NaN, List.of());
 
     /**
-
      * Copies.
-
      *
-
      * @param t1Ms fixed T1 of the basis in ms, or NaN for the protocol tissue's T1
-
      * @param windows T2 windows whose fractions are reported, or empty for the default window
-
      */
     public SpectrumChoices {
         windows = windows == null ? List.of() : List.copyOf(windows);

@@ -46,19 +46,12 @@ public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Se
     }
 
     /**
-
      * Validates the grid; messages name the command-line options.
-
      *
-
      * @param minMs shortest T2 in ms (first bin)
-
      * @param maxMs longest T2 in ms (last bin)
-
      * @param bins number of grid points (≥ 2)
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public T2Grid {
         Checks.positive("--t2-min-ms", minMs, null);

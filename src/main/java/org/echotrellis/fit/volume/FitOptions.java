@@ -38,39 +38,22 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
             false, false, false, false);
 
     /**
-
      * Validates the values that need no protocol (parameters are named by their summary keys).
-
      *
-
      * @param model the decay model
-
      * @param t1Ms fixed T1 in ms (may be +Infinity), or NaN for the protocol tissue's T1
-
      * @param t2MinMs lower T2 bound in ms
-
      * @param t2MaxMs upper T2 bound in ms
-
      * @param b1Min lower B1 bound
-
      * @param b1Max upper B1 bound before folding
-
      * @param fold report the folded B1 for constant trains (see {@link FitSettings#effectiveB1Max()})
-
      * @param noiseSigma channel noise σ for the Rician mean model, NaN for plain least squares
-
      * @param noiseFromBackground estimate σ from the voxels outside the mask (volumes with a mask only;
-
      *        {@code noiseSigma} is then ignored)
-
      * @param monoOffset fit a constant offset in the mono-exponential model
-
      * @param monoSkipFirst drop the first echo in the mono-exponential model
-
      * @param compareMono also fit the mono-exponential model (EPG model only; map {@code mono_t2_ms})
-
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
-
      */
     public FitOptions {
         Checks.require(model != null, "model must be epg or mono, got null");

@@ -20,21 +20,13 @@ public record VolumeRequest(ProtocolText protocol, VolumeAnalysis.Kind kind, Fit
     private static final long serialVersionUID = 1L;
 
     /**
-
      * Validates that the settings of the kind are present.
-
      *
-
      * @param protocol the protocol document
-
      * @param kind fit or spectrum
-
      * @param fit the fit settings ({@link VolumeAnalysis.Kind#FIT}; null otherwise)
-
      * @param spectrum the spectrum settings ({@link VolumeAnalysis.Kind#SPECTRUM}; null otherwise)
-
      * @throws IllegalArgumentException if the values are inconsistent
-
      */
     public VolumeRequest {
         if (protocol == null || kind == null) {

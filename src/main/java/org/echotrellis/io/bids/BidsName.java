@@ -16,17 +16,11 @@ import java.util.Optional;
 record BidsName(Map<String, String> entities, String suffix, String extension) {
 
     /**
-
      * Copies.
-
      *
-
      * @param entities the entities in file order
-
      * @param suffix the suffix
-
      * @param extension the extension with its leading dot
-
      */
     public BidsName {
         entities = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(entities));

@@ -26,25 +26,16 @@ public record MeseCollection(String subject, Optional<String> session, Map<Strin
                              ObjectNode b1Sidecar) {
 
     /**
-
      * Copies.
-
      *
-
      * @param subject participant label (without {@code sub-})
-
      * @param session session label, or empty
-
      * @param entities the entities that name the collection (sub, ses, acq, run … without echo), in order
-
      * @param echoFiles the per-echo images, echo 1 first
-
      * @param sidecars the merged sidecar of each echo file, same order
-
      * @param b1Map the {@code _TB1map} of the subject/session's {@code fmap/}, if one was found
 
      * @param b1Sidecar the merged sidecar of that B1 map (empty object if none)
-
      */
     public MeseCollection {
         entities = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(entities));

@@ -11,8 +11,6 @@ import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 
 import org.echotrellis.InputException;
-import org.echotrellis.fit.FitModel;
-import org.echotrellis.fit.spectrum.FractionWindow;
 import org.echotrellis.fit.spectrum.SpectrumChoices;
 import org.echotrellis.fit.volume.BidsDerivatives;
 import org.echotrellis.fit.volume.FitOptions;
@@ -35,12 +33,14 @@ import picocli.CommandLine.Spec;
                 + "_M0map, _desc-epgfit_TB1map (percent), _MWFmap (percent, spectrum), status maps, a JSON sidecar "
                 + "per map and a summary per collection.",
             "Echo times, repetition time and flip angles come from the sidecars (EchoTime, RepetitionTime, FlipAngle, "
-                + "RefocusingFlipAngle); --protocol supplies the rest. A B1 map is taken from fmap/ (_TB1map, percent)."},
+                + "RefocusingFlipAngle); --protocol supplies the rest. A B1 map is taken from fmap/ (_TB1map, percent).",
+            "Each collection's fit and spectrum outputs are written as one set each: they appear together when the "
+                + "analysis has finished and replace the previous run's set together (--force)."},
         footer = {"", "Examples:",
             "  java -jar target/echotrellis.jar bids /data/study \\",
             "      /data/study/derivatives/echotrellis participant \\",
             "      --participant-label 01 02 --analysis both \\",
-            "      --protocol sequences/brain-mwi-32.yaml",
+            "      --protocol sequences/brain-mwi-32.yaml --mask mask",
             "  java -jar target/echotrellis.jar bids study out participant \\",
             "      --refocusing-flip-deg 160",
             "",
@@ -68,12 +68,8 @@ final class BidsCommand implements Callable<Integer> {
     @Option(names = "--session-label", arity = "1..*", paramLabel = "S", description = "Sessions to process (default: all).")
     List<String> sessions = new ArrayList<>();
 
-    @Option(names = "--analysis", paramLabel = "A", defaultValue = "fit",
-            description = "fit (T2map, M0map, TB1map), spectrum (MWFmap) or both (default: ${DEFAULT-VALUE}).")
-    Analysis analysis;
-
-    @Option(names = "--protocol", paramLabel = "FILE", description = "Protocol file for what sidecars cannot give (pulses, slice, crushers, tissue).")
-    Path protocol;
+    @Mixin
+    DatasetOptions analysis;
 
     @Option(names = "--refocusing-flip-deg", paramLabel = "DEG", description = "Refocusing flip when no sidecar has RefocusingFlipAngle.")
     Double refocusDeg;
@@ -84,23 +80,6 @@ final class BidsCommand implements Callable<Integer> {
     @Option(names = "--b1-map-units", paramLabel = "U", defaultValue = "percent",
             description = "Values of --b1-map: percent (100 = nominal) or scale (default: ${DEFAULT-VALUE}).")
     FitCommand.B1Units b1Units;
-
-    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "epg", description = "epg or mono (default: ${DEFAULT-VALUE}).")
-    FitModel model;
-
-    @Option(names = "--t1-ms", paramLabel = "MS",
-            description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
-    Double t1Ms;
-
-    @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "Lower T2 bound of the fit (default: ${DEFAULT-VALUE}).")
-    double t2MinMs;
-
-    @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "5000", description = "Upper T2 bound of the fit (default: ${DEFAULT-VALUE}).")
-    double t2MaxMs;
-
-    @Option(names = "--fraction-window-ms", paramLabel = "LO:HI",
-            description = "Spectrum: T2 window of the MWFmap (default: the spectrum command's short-T2 window for each collection's protocol).")
-    String window;
 
     @Mixin
     ReportOption report;
@@ -114,9 +93,6 @@ final class BidsCommand implements Callable<Integer> {
     @Option(names = "--quiet", description = "No progress bar.")
     boolean quiet;
 
-    /** What to compute. */
-    enum Analysis { fit, spectrum, both }
-
     @Override
     public Integer call() {
         if (!level.equals("participant")) {
@@ -128,14 +104,9 @@ final class BidsCommand implements Callable<Integer> {
         if (bidsDir.toAbsolutePath().normalize().equals(outDir.toAbsolutePath().normalize())) {
             throw new InputException("OUTPUT_DIR must differ from BIDS_DIR " + bidsDir + " (inputs are never modified)");
         }
-        Optional<ProtocolText> text = Optional.ofNullable(protocol).map(ProtocolText::read);
-        text.ifPresent(ProtocolText::parse);
-        Optional<FitOptions> fit = analysis == Analysis.spectrum ? Optional.empty()
-                : Optional.of(CliChecks.asOptions(() -> FitOptions.DEFAULT.withModel(model).withT1Ms(CliChecks.t1OrProtocol(t1Ms))
-                        .withT2BoundsMs(t2MinMs, t2MaxMs)));
-        Optional<SpectrumChoices> spectrum = analysis == Analysis.fit ? Optional.empty()
-                : Optional.of(new SpectrumChoices(CliChecks.t1OrProtocol(t1Ms),
-                        window == null ? List.of() : List.of(FractionWindow.parse(window))));
+        Optional<ProtocolText> text = analysis.protocolText();
+        Optional<FitOptions> fit = analysis.fit();
+        Optional<SpectrumChoices> spectrum = analysis.spectrum();
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
         List<MeseCollection> found = BidsLayout.find(bidsDir, participants, sessions);
         PrintWriter out = spec.commandLine().getOut();
@@ -146,7 +117,8 @@ final class BidsCommand implements Callable<Integer> {
         }
         String command = CliChecks.commandLine(spec);
         BidsDerivatives.Settings settings = new BidsDerivatives.Settings(fit, spectrum, Optional.ofNullable(b1Map),
-                b1Units == FitCommand.B1Units.percent ? 0.01 : 1, n, force, command);
+                b1Units == FitCommand.B1Units.percent ? 0.01 : 1, Optional.ofNullable(analysis.maskChoice()),
+                analysis.outsideMaskValue(), n, force, command);
         report.begin(spec, force);
         BidsDerivatives.writeDescription(outDir, command, true);
         int failed = 0;
@@ -174,7 +146,7 @@ final class BidsCommand implements Callable<Integer> {
         out.flush();
         err.flush();
         int done = found.size() - failed;
-        report.settings(new java.util.LinkedHashMap<>(java.util.Map.of("analysis", analysis.name(),
+        report.settings(new java.util.LinkedHashMap<>(java.util.Map.of("analysis", analysis.analysis.name(),
                 "collections", found.size())));
         String headline = done + " of " + found.size() + " collections done" + (failed > 0 ? ", " + failed + " failed" : "");
         report.write("bids: " + bidsDir.getFileName(), force, r -> r.section("Collections")

@@ -22,29 +22,21 @@ final class CohortCli {
     private CohortCli() { }
 
     static int run(CohortCommand c, PrintWriter out, PrintWriter err) {
-        String analysis = c.analysisName();
-        if (!List.of("fit", "spectrum", "both").contains(analysis)) {
-            throw new InputException("--analysis must be fit, spectrum or both, got " + c.analysis);
-        }
+        String analysis = c.analysis.analysis.name();
         if (c.labels != null && !c.labels.equals("dseg") && c.labels.isBlank()) {
             throw new InputException("--labels must be 'dseg' or a file pattern below BIDS_DIR, got an empty value");
         }
-        FitOptions fit = FitOptions.DEFAULT.withT1Ms(CliChecks.t1OrProtocol(c.t1Ms)).withT2BoundsMs(c.t2MinMs, c.t2MaxMs)
-                .withB1Bounds(c.b1Min, c.b1Max);
-        // a cohort's protocols are read per subject: each takes its own spectrum defaults
-        SpectrumChoices spectrum = new SpectrumChoices(CliChecks.t1OrProtocol(c.t1Ms), List.of());
-        ProtocolText protocol = c.protocol == null ? null : ProtocolText.read(c.protocol);
-        if (protocol != null) {
-            protocol.parse();
-        }
+        FitOptions fit = c.analysis.fit().orElse(null);
+        // a cohort's protocols are read per subject: each resolves the choices left open
+        SpectrumChoices spectrum = c.analysis.spectrum().orElse(null);
+        ProtocolText protocol = c.analysis.protocolText().orElse(null);
+        String mask = c.analysis.maskChoice();
+        float outside = c.analysis.outsideMaskValue();
         c.report.begin(c.spec, c.force);
         try (CohortSpark spark = CohortSpark.open(c.master)) {
             int taskCpus = spark.session().sparkContext().getConf().getInt("spark.task.cpus", 1);
-            CohortRequest request = new CohortRequest(c.bidsDir, c.outputDir, c.participants,
-                    analysis.equals("spectrum") ? null : fit, analysis.equals("fit") ? null : spectrum, protocol,
-                    c.labels, c.force,
-                    taskCpus, "echotrellis " + String.join(" ",
-                            c.spec.commandLine().getParseResult().originalArgs()));
+            CohortRequest request = new CohortRequest(c.bidsDir, c.outputDir, c.participants, fit, spectrum, protocol,
+                    mask, outside, c.labels, c.force, taskCpus, CliChecks.commandLine(c.spec));
             CohortResult r = CohortJob.run(spark.session(), request, err);
             out.printf(Locale.ROOT, "cohort: %d processed, %d skipped (complete earlier), %d failed; %d table rows; "
                     + "%d voxels in %.1f s (%.0f voxels/s)%n", r.processed(), r.skipped(), r.failures().size(),
@@ -56,7 +48,7 @@ final class CohortCli {
             out.flush();
             err.flush();
             c.report.settings(new java.util.LinkedHashMap<>(java.util.Map.of("analysis", analysis,
-                    "labels", c.labels == null ? "whole mask" : c.labels)));
+                    "mask", mask == null ? "every voxel" : mask, "labels", c.labels == null ? "whole mask" : c.labels)));
             c.report.write("cohort: " + c.bidsDir, c.force, page -> CohortReport.sections(page, r));
             return r.failures().isEmpty() ? 0 : CohortResult.EXIT_SUBJECTS_FAILED;
         }

@@ -3,7 +3,6 @@ package org.echotrellis.cli;
 import java.io.PrintWriter;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.concurrent.Callable;
 
 import org.echotrellis.InputException;
@@ -23,14 +22,16 @@ import picocli.CommandLine.Spec;
         description = {"Fit T2 (and/or T2 spectra) for every subject/session of a BIDS dataset on Apache Spark: one "
                 + "task per subject/session, BIDS derivatives written atomically per subject/session, and "
                 + "OUTPUT_DIR/cohort-table.csv + cohort-table.parquet (one row per subject, session, label and map: "
-                + "voxels, mean, sd, 5/25/50/75/95th percentiles) and cohort-failures.csv.",
+                + "voxels, mean, sd, 5/25/50/75/95th percentiles) and cohort-failures.csv. Statistics cover the fitted "
+                + "voxels inside --mask (every fitted voxel without one).",
             "A rerun skips subjects/sessions whose outputs are complete (--force redoes them). BIDS_DIR and "
                 + "OUTPUT_DIR may be local paths or file://, hdfs:// or s3a:// URIs.",
             "Exit codes: 0 all done, 3 finished but some subjects/sessions failed (see cohort-failures.csv), "
                 + "2 bad input or no Spark, 1 internal error."},
         footer = {"", "Examples:",
             "  java -jar target/echotrellis-cohort.jar cohort bids/ derivatives/echotrellis \\",
-            "      --protocol sequences/brain-mwi-32.yaml --analysis both --labels dseg",
+            "      --protocol sequences/brain-mwi-32.yaml --analysis both \\",
+            "      --mask mask --labels dseg",
             "  spark-submit --class org.echotrellis.cli.Main target/echotrellis.jar cohort \\",
             "      hdfs:///study/bids hdfs:///study/derivatives/echotrellis --analysis fit",
             "", "Research tool, not a medical device."})
@@ -57,9 +58,8 @@ final class CohortCommand implements Callable<Integer> {
             description = "Subjects to process (without 'sub-'); default: all.")
     List<String> participants = new ArrayList<>();
 
-    @Option(names = "--analysis", paramLabel = "A", defaultValue = "fit",
-            description = "fit, spectrum or both (default: ${DEFAULT-VALUE}).")
-    String analysis;
+    @Mixin
+    DatasetOptions analysis;
 
     @Option(names = "--labels", paramLabel = "dseg|PATTERN",
             description = "Per-subject label image for the table: 'dseg' (the subject/session's *_dseg.nii[.gz] in anat/) "
@@ -72,27 +72,6 @@ final class CohortCommand implements Callable<Integer> {
 
     @Option(names = "--force", description = "Redo subjects/sessions whose outputs exist.")
     boolean force;
-
-    @Option(names = "--protocol", paramLabel = "FILE",
-            description = "Protocol file for what sidecars cannot give (refocusing flip, pulse shapes); must agree "
-                    + "with the sidecars' echo count and spacing.")
-    java.nio.file.Path protocol;
-
-    @Option(names = "--t1-ms", paramLabel = "MS",
-            description = "Fixed T1 in ms (default: T1 of the protocol's tissue).")
-    Double t1Ms;
-
-    @Option(names = "--t2-min-ms", paramLabel = "MS", defaultValue = "1", description = "fit: lower T2 bound (default: ${DEFAULT-VALUE}).")
-    double t2MinMs;
-
-    @Option(names = "--t2-max-ms", paramLabel = "MS", defaultValue = "5000", description = "fit: upper T2 bound (default: ${DEFAULT-VALUE}).")
-    double t2MaxMs;
-
-    @Option(names = "--b1-min", paramLabel = "SCALE", defaultValue = "0.3", description = "fit: lower B1 bound (default: ${DEFAULT-VALUE}).")
-    double b1Min;
-
-    @Option(names = "--b1-max", paramLabel = "SCALE", defaultValue = "1.7", description = "fit: upper B1 bound before folding (default: ${DEFAULT-VALUE}).")
-    double b1Max;
 
     @Override
     public Integer call() {
@@ -107,10 +86,5 @@ final class CohortCommand implements Callable<Integer> {
         PrintWriter out = spec.commandLine().getOut();
         PrintWriter err = spec.commandLine().getErr();
         return CohortCli.run(this, out, err);
-    }
-
-    /** @return the analysis option in lower case */
-    String analysisName() {
-        return analysis.toLowerCase(Locale.ROOT);
     }
 }

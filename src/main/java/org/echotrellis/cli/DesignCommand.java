@@ -233,12 +233,12 @@ final class DesignCommand implements Callable<Integer> {
         }
         refuseOverLimits(report);
         PrintWriter o = spec.commandLine().getOut();
-        o.print(format == Format.json ? Json.write(CliChecks.withProvenance(report.toJson(), spec, protocol))
-                : DesignOutputs.table(report));
+        java.util.Map<String, Object> json = CliChecks.withProvenance(report.toJson(), spec, protocol);
+        o.print(format == Format.json ? Json.write(json) : DesignOutputs.table(report));
         o.flush();
         if (out != null) {
             String protocolName = name != null ? name : p.name() + "-designed";
-            DesignOutputs.write(report, out, protocolName, force);
+            DesignOutputs.write(report, json, out, protocolName, force);
             set.commit();
             if (!quiet) {
                 err.println("design: wrote " + out.resolve(DesignOutputs.SCHEDULE_FILE) + ", design.json and plots");

@@ -3,6 +3,7 @@ package org.echotrellis.cli;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import java.util.Locale;
 import org.echotrellis.InputException;
 import org.echotrellis.design.Comparison;
@@ -44,13 +45,16 @@ final class DesignOutputs {
         return set;
     }
 
-    /** Writes schedule.yaml, design.json and the three plots (PNG and SVG). */
-    static void write(DesignReport r, Path dir, String name, boolean force) {
+    /**
+     * Writes schedule.yaml, design.json (the report's JSON with {@code provenance}) and the three
+     * plots (PNG and SVG).
+     */
+    static void write(DesignReport r, Map<String, Object> json, Path dir, String name, boolean force) {
         DesignProblem p = r.problem();
         String description = String.format(Locale.ROOT, "%d echoes, ESP %s ms, refocusing schedule for %s (%s %s)",
                 p.echoes(), Tables.num(p.echoSpacingMs()), p.tissueName(), r.mode(), r.spec());
         AtomicFiles.writeString(dir.resolve(SCHEDULE_FILE), ScheduleFile.yaml(name, description, r), force);
-        AtomicFiles.writeString(dir.resolve("design.json"), Json.write(r.toJson()), force);
+        AtomicFiles.writeString(dir.resolve("design.json"), Json.write(json), force);
         both(scheduleChart(r), dir, "schedule", force);
         both(echoChart(r), dir, "echoes", force);
         both(sarChart(r), dir, "relative-sar", force);

@@ -10,6 +10,6 @@ import picocli.CommandLine.Option;
 final class MapOptions {
     @Option(names = "--display-range", paramLabel = "LO:HI",
             description = "Colour range of the T2 or fraction map previews, e.g. 20:160 (default: shared "
-                    + "2-98 % range of the comparable maps).")
+                    + "2nd-98th percentile range of the comparable maps).")
     String displayRange;
 }

@@ -14,6 +14,7 @@ import org.echotrellis.fit.spectrum.BasisCache;
 import org.echotrellis.fit.spectrum.FractionWindow;
 import org.echotrellis.fit.spectrum.RefocusSearch;
 import org.echotrellis.fit.spectrum.Regularisation;
+import org.echotrellis.fit.spectrum.SpectrumChoices;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
 import org.echotrellis.fit.spectrum.T2Grid;
 import org.echotrellis.fit.volume.VolumeAnalysis;
@@ -194,26 +195,21 @@ final class SpectrumCommand implements Callable<Integer> {
     SpectrumOptions options(Protocol p) {
         Checks.require(refocusDeg == null || refocusSearch == null,
                 "--refocus-deg and --refocus-search-deg exclude each other; give one");
-        SpectrumOptions d = SpectrumOptions.defaults(p);
-        double lo = t2MinMs != null ? t2MinMs : d.grid().minMs();
-        double hi = t2MaxMs != null ? t2MaxMs : d.grid().maxMs();
-        Checks.positive("--t2-min-ms", lo, null);
-        Checks.require(hi > lo, "--t2-max-ms must be > --t2-min-ms (" + lo + " ms), got " + hi);
-        int bins = t2Bins != null ? t2Bins
-                : Math.min(T2Grid.MAX_BINS, (int) Math.ceil(T2Grid.BINS_PER_DECADE * Math.log10(hi / lo) - 1e-9) + 1);
-        T2Grid grid = new T2Grid(lo, hi, bins);
+        return CliChecks.asOptions(() -> choices().resolve(p));
+    }
+
+    /** @return the grid, basis and search choices of the command line (NaN/null/0 where left to the protocol) */
+    SpectrumChoices choices() {
         RefocusSearch search = refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
-                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : d.search();
+                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : null;
         List<FractionWindow> ws = new ArrayList<>();
         for (String w : windows) {
             ws.add(FractionWindow.parse(w));
         }
-        if (ws.isEmpty()) {
-            ws.add(FractionWindow.shortT2(grid));
-        }
-        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : d.t1Ms();
-        return new SpectrumOptions(grid, t1, Regularisation.parse(regularisation),
-                misfitIncrease != null ? misfitIncrease : d.misfitIncrease(), search, ws);
+        return new SpectrumChoices(t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : Double.NaN, ws,
+                t2MinMs != null ? t2MinMs : Double.NaN, t2MaxMs != null ? t2MaxMs : Double.NaN,
+                t2Bins != null ? Checks.inRange("--t2-bins", t2Bins, 2, T2Grid.MAX_BINS, null) : 0,
+                Regularisation.parse(regularisation), misfitIncrease != null ? misfitIncrease : Double.NaN, search);
     }
 
     private Map<String, Object> settings(Protocol p, VolumeAnalysis analysis) {

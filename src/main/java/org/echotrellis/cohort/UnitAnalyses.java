@@ -16,6 +16,7 @@ import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.ProgressReporter;
 import org.echotrellis.io.RegionStatistics;
 import org.echotrellis.io.VoxelStatus;
+import org.echotrellis.io.bids.BidsImages;
 import org.echotrellis.io.bids.BidsLayout;
 import org.echotrellis.io.bids.BidsProtocol;
 import org.echotrellis.io.bids.MeseCollection;
@@ -56,8 +57,11 @@ final class UnitAnalyses {
             Storage.fetchSidecars(subDir, sub);
             Storage.fetch(new org.apache.hadoop.fs.Path(subDir, "ses-" + unit.session()), sub);
         }
-        if (request.labels() != null && !request.labels().equals(LabelImages.DSEG)) {
-            String rel = request.labels().replace("{sub}", unit.subject()).replace("{ses}", unit.session());
+        for (String pattern : new String[] {request.labels(), request.mask()}) {
+            if (pattern == null || pattern.equals(BidsImages.DSEG) || pattern.equals(BidsImages.MASK)) {
+                continue;  // keywords name files in the unit's own anat/ folder, fetched above
+            }
+            String rel = BidsImages.expand(pattern, unit.subject(), unit.session());
             org.apache.hadoop.fs.Path l = new org.apache.hadoop.fs.Path(root, rel);
             if (Storage.exists(l)) {
                 Storage.fetch(l, Files.createDirectories(stage.resolve(rel).getParent()));
@@ -87,8 +91,8 @@ final class UnitAnalyses {
                     + ": no " + unit.prefix() + "*_echo-<n>_MESE.nii[.gz] files");
         }
         BidsDerivatives.Settings settings = new BidsDerivatives.Settings(Optional.ofNullable(request.fit()),
-                Optional.ofNullable(request.spectrum()), Optional.empty(), 1.0, request.threadsPerTask(), false,
-                request.commandLine());
+                Optional.ofNullable(request.spectrum()), Optional.empty(), 1.0, Optional.ofNullable(request.mask()),
+                request.outsideMask(), request.threadsPerTask(), false, request.commandLine());
         long voxels = 0;
         for (MeseCollection c : cs) {
             stage[0] = "read";
@@ -98,7 +102,7 @@ final class UnitAnalyses {
             List<Path> files = BidsDerivatives.run(root, c, p.protocol(), p.acquisition(), settings, out,
                     ProgressReporter.NONE);
             stage[0] = "labels";
-            Optional<Path> labelFile = LabelImages.find(request.labels(), root, unit, c.prefix());
+            Optional<Path> labelFile = BidsImages.find(request.labels(), BidsImages.DSEG, root, c);
             float[] labels = labelFile.map(UnitAnalyses::floats).orElse(null);
             String labelSource = labelFile.map(Path::toString).orElse("");
             for (String status : List.of(FIT_STATUS, SPECTRUM_STATUS)) {

@@ -38,6 +38,11 @@ import org.echotrellis.InputException;
  * set, when the manifest shows the previous run wrote them), never when they are not regular files
  * (directories, links, devices, pipes) and never when they are inputs of the same run (compared by
  * real path). A replaced file keeps its permissions; new files get the process umask.
+ *
+ * <p>Several sets may share one directory when each has a name ({@link #openNamed}): a BIDS
+ * {@code anat/} folder holds the fit and the spectrum outputs of several collections, each a set of
+ * its own with its own manifest ({@value #MANIFEST}{@code -<name>}); committing one set never removes
+ * another's files. Runs into the same directory still take turns on the one lock.
  */
 public final class OutputSet implements AutoCloseable {
     /** Manifest of the last committed set: one file name per line. */
@@ -47,6 +52,8 @@ public final class OutputSet implements AutoCloseable {
     /** Name prefix of staging directories. */
     public static final String STAGING_PREFIX = ".echotrellis-staging-";
     private static final String COMPLETE = ".complete";
+    /** File in a staging directory naming its set (absent for the unnamed set). */
+    private static final String SET_NAME = ".set";
     private static final Set<OutputSet> OPEN = ConcurrentHashMap.newKeySet();
 
     static {
@@ -54,6 +61,7 @@ public final class OutputSet implements AutoCloseable {
     }
 
     private final Path dir;
+    private final String name;
     private final boolean force;
     private final boolean replaceOwn;
     private final List<Path> inputs;
@@ -65,8 +73,12 @@ public final class OutputSet implements AutoCloseable {
     private boolean committing;
     private boolean closed;
 
-    private OutputSet(Path dir, boolean force, boolean replaceOwn, Collection<Path> inputs) {
+    private OutputSet(Path dir, String name, boolean force, boolean replaceOwn, Collection<Path> inputs) {
+        if (!name.isEmpty() && !name.matches("[A-Za-z0-9][A-Za-z0-9_.-]*")) {
+            throw new IllegalArgumentException("output set name " + name + ": letters, digits, _ . - only");
+        }
         this.dir = dir.toAbsolutePath().normalize();
+        this.name = name;
         this.force = force;
         this.replaceOwn = replaceOwn;
         this.inputs = realPaths(inputs);
@@ -93,9 +105,12 @@ public final class OutputSet implements AutoCloseable {
                         + "); wait for it to finish or choose another output directory");
             }
             cleanStale(this.dir);
-            this.previous = readManifest(this.dir);
+            this.previous = readManifest(this.dir, name);
             this.staging = Files.createDirectory(this.dir.resolve(STAGING_PREFIX + ProcessHandle.current().pid() + "-"
                     + Long.toHexString(ThreadLocalRandom.current().nextLong() & 0xffffffffL)));
+            if (!name.isEmpty()) {
+                Files.writeString(staging.resolve(SET_NAME), name, StandardCharsets.UTF_8);
+            }
         } catch (IOException e) {
             closeQuietly(ch);
             throw WriteFailure.of("cannot write to the output directory " + dir, e);
@@ -114,7 +129,24 @@ public final class OutputSet implements AutoCloseable {
      * @return the open set (commit, then close)
      */
     public static OutputSet open(Path dir, boolean force, Collection<Path> inputs) {
-        return new OutputSet(dir, force, false, inputs);
+        return new OutputSet(dir, "", force, false, inputs);
+    }
+
+    /**
+     * Like {@link #open}, for one of several sets sharing a directory: the set's manifest carries its
+     * name, so its commit replaces and removes only files of the same set.
+     *
+     * @param dir the output directory
+     * @param name the set's name (letters, digits, {@code _ . -}), e.g. a file-name prefix and analysis
+     * @param force whether existing files may be replaced
+     * @param inputs the run's input files (never written over; may contain nulls)
+     * @return the open set (commit, then close)
+     */
+    public static OutputSet openNamed(Path dir, String name, boolean force, Collection<Path> inputs) {
+        if (name.isEmpty()) {
+            throw new IllegalArgumentException("a named output set needs a name");
+        }
+        return new OutputSet(dir, name, force, false, inputs);
     }
 
     /**
@@ -127,7 +159,7 @@ public final class OutputSet implements AutoCloseable {
      * @return the open set
      */
     public static OutputSet openOwn(Path dir, boolean force, Collection<Path> inputs) {
-        return new OutputSet(dir, force, true, inputs);
+        return new OutputSet(dir, "", force, true, inputs);
     }
 
     /** @return the output directory (absolute) */
@@ -248,7 +280,9 @@ public final class OutputSet implements AutoCloseable {
     /** Moves a complete staging directory's files into place and records the manifest. */
     private static void rollForward(Path dir, Path staging, List<Path> inputs) throws IOException {
         List<String> names = Files.readAllLines(staging.resolve(COMPLETE), StandardCharsets.UTF_8);
-        Set<String> previous = readManifest(dir);
+        Path setFile = staging.resolve(SET_NAME);
+        String set = Files.isRegularFile(setFile) ? Files.readString(setFile, StandardCharsets.UTF_8).strip() : "";
+        Set<String> previous = readManifest(dir, set);
         for (String n : names) {
             Path from = staging.resolve(n);
             if (Files.exists(from, LinkOption.NOFOLLOW_LINKS)) {
@@ -263,10 +297,10 @@ public final class OutputSet implements AutoCloseable {
                 Files.deleteIfExists(p);
             }
         }
-        Path tmp = staging.resolve(MANIFEST);
+        Path tmp = staging.resolve(manifestName(set));
         // sorted, so that regenerating the same outputs (the committed demo figures) gives the same manifest
         Files.write(tmp, new java.util.TreeSet<>(names), StandardCharsets.UTF_8);
-        AtomicFiles.moveInto(tmp, dir.resolve(MANIFEST));
+        AtomicFiles.moveInto(tmp, dir.resolve(manifestName(set)));
         deleteTree(staging);
     }
 
@@ -285,8 +319,13 @@ public final class OutputSet implements AutoCloseable {
         }
     }
 
-    private static Set<String> readManifest(Path dir) throws IOException {
-        Path m = dir.resolve(MANIFEST);
+    /** @return the manifest file name of a set ({@value #MANIFEST} for the unnamed set) */
+    static String manifestName(String set) {
+        return set.isEmpty() ? MANIFEST : MANIFEST + "-" + set;
+    }
+
+    private static Set<String> readManifest(Path dir, String set) throws IOException {
+        Path m = dir.resolve(manifestName(set));
         Set<String> names = new LinkedHashSet<>();
         if (Files.isRegularFile(m, LinkOption.NOFOLLOW_LINKS)) {
             for (String line : Files.readAllLines(m, StandardCharsets.UTF_8)) {

@@ -176,6 +176,60 @@ class BidsCommandTest {
     }
 
     @Test
+    void maskLimitsTheFitAndEachAnalysisIsItsOwnOutputSet() throws IOException {
+        Path root = dataset();
+        // a brain mask beside sub-01's series (BIDS suffix _mask with a desc entity): the first slice only
+        double[] m = new double[NV];
+        for (int v = 0; v < NX * NY; v++) {
+            m[v] = 1;
+        }
+        Nifti.write(root.resolve("sub-01/anat/sub-01_desc-brain_mask.nii.gz"),
+                NiftiHeader.create(NiftiDatatype.UINT8, NX, NY, NZ).withAffine(AFFINE, 1), m, false);
+        Path out = dir.resolve("derivatives-mask");
+        CliRun fit = CliRun.of("bids", root.toString(), out.toString(), "participant", "--participant-label", "01",
+                "--mask", "mask", "--outside-mask-value", "0", "--threads", "2", "--quiet");
+        assertEquals(0, fit.code(), fit.err());
+        Path a1 = out.resolve("sub-01/anat");
+        NiftiImage t2 = Nifti.read(a1.resolve("sub-01_T2map.nii.gz"));
+        NiftiImage status = Nifti.read(a1.resolve("sub-01_desc-fitstatus_dseg.nii.gz"));
+        for (int v = 0; v < NV; v++) {
+            if (v < NX * NY) {
+                assertEquals(t2Ms(v) / 1000, t2.get(v), 0.03 * t2Ms(v) / 1000, "voxel " + v);
+            } else {
+                assertEquals(0, t2.get(v), "outside the mask: the chosen fill value");
+                assertEquals(0, status.get(v), "status outside_mask");
+            }
+        }
+        JsonNode side = Json.MAPPER.readTree(a1.resolve("sub-01_T2map.json").toFile());
+        assertTrue(side.get("Sources").toString().contains("bids:raw:sub-01/anat/sub-01_desc-brain_mask.nii.gz"),
+                side.get("Sources").toString());
+
+        // the spectrum of the same collection is a set of its own: the fit's files stay
+        CliRun spectrum = CliRun.of("bids", root.toString(), out.toString(), "participant", "--participant-label", "01",
+                "--mask", "mask", "--analysis", "spectrum", "--threads", "2", "--quiet");
+        assertEquals(0, spectrum.code(), spectrum.err());
+        assertTrue(Files.isRegularFile(a1.resolve("sub-01_MWFmap.nii.gz")));
+        assertTrue(Files.isRegularFile(a1.resolve("sub-01_desc-epgfit_TB1map.nii.gz")));
+        // a mono-exponential refit replaces the fit set as a whole: its B1 map of the earlier run goes
+        CliRun mono = CliRun.of("bids", root.toString(), out.toString(), "participant", "--participant-label", "01",
+                "--mask", "mask", "--model", "mono", "--force", "--threads", "2", "--quiet");
+        assertEquals(0, mono.code(), mono.err());
+        assertFalse(Files.exists(a1.resolve("sub-01_desc-epgfit_TB1map.nii.gz")), "stale file of the fit set removed");
+        assertFalse(Files.exists(a1.resolve("sub-01_desc-epgfit_TB1map.json")));
+        assertTrue(Files.isRegularFile(a1.resolve("sub-01_MWFmap.nii.gz")), "the spectrum set is untouched");
+        try (var files = Files.list(a1)) {
+            assertTrue(files.noneMatch(f -> f.getFileName().toString().startsWith(".echotrellis-staging")), "no staging left");
+        }
+
+        // a collection without the requested mask fails, naming what was looked for; others go on
+        CliRun missing = CliRun.of("bids", root.toString(), dir.resolve("derivatives-missing").toString(), "participant",
+                "--mask", "mask", "--threads", "2", "--quiet");
+        assertEquals(2, missing.code(), missing.err());
+        assertTrue(missing.err().contains("sub-02 ses-1") && missing.err().contains("_mask.nii[.gz]"), missing.err());
+        assertTrue(Files.isRegularFile(dir.resolve("derivatives-missing/sub-01/anat/sub-01_T2map.nii.gz")));
+    }
+
+    @Test
     void disagreeingProtocolIsRefusedNamingBothAndOtherSubjectsGoOn() throws IOException {
         Path root = dataset();
         Files.writeString(root.resolve("sub-02").resolve("ses-1").resolve("anat")

@@ -88,6 +88,9 @@ class DesignCommandTest {
         assertTrue(j.get("relative_sar").asDouble() <= 0.5 * (1 + 1e-12));
         assertTrue(j.get("b1rms_ut").asDouble() <= 2.0 * (1 + 1e-12));
         assertTrue(j.get("objective_value").asDouble() >= j.get("best_constant_objective").asDouble());
+        JsonNode prov = j.get("provenance");  // every JSON output carries it, the file as well as stdout
+        assertTrue(prov.get("command_line").asText().startsWith("echotrellis design "), prov.toString());
+        assertEquals(Files.readString(protocol()), prov.get("protocol").asText());
         EchoTrain t = Simulator.simulate(ProtocolReader.read(out.resolve("schedule.yaml")));
         for (int i = 0; i < 20; i++) { // flips written to 1e-4 degrees
             assertEquals(j.get("predicted").get(i).asDouble(), t.magnitude(i), 1e-5);

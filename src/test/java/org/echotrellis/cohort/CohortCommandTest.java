@@ -30,7 +30,7 @@ import picocli.CommandLine;
 
 /**
  * The cohort job end to end in Spark local mode: four invented subjects (one with a session, one
- * with a label image, one with a corrupt echo file) → table rows of the three good ones whose
+ * with a label image, one with a corrupt echo file; a brain mask each under derivatives/) → table rows of the three good ones whose
  * statistics match values recomputed here from the written maps, the failure listed, exit 3; a
  * rerun after repairing the bad subject leaves the finished subjects' files untouched.
  */
@@ -39,6 +39,7 @@ class CohortCommandTest {
     static Path dir;
     static Path bids;
     static float[] labels;
+    static float[] mask;
 
     @BeforeAll
     static void buildCohort() throws IOException {
@@ -48,6 +49,9 @@ class CohortCommandTest {
         c.subject("02", "pre", 12);
         c.subject("03", null, 13);
         labels = c.labels("03", null);
+        for (String sub : List.of("01", "02", "03", "04")) {
+            mask = c.mask(sub);
+        }
         Path bad = c.subject("04", null, 14);
         Files.write(bad.resolve("sub-04_echo-3_MESE.nii.gz"), new byte[] {0x1f, (byte) 0x8b, 8, 0, 1, 2, 3});
         SharedSpark.get();
@@ -57,7 +61,7 @@ class CohortCommandTest {
 
     private static Run cohort(String... extra) {
         List<String> a = new ArrayList<>(List.of("cohort", bids.toString(), dir.resolve("out").toString(),
-                "--master", "local[2]", "--labels", "dseg"));
+                "--master", "local[2]", "--labels", "dseg", "--mask", "derivatives/masks/sub-{sub}_mask.nii.gz"));
         a.addAll(List.of(extra));
         CommandLine cl = Main.newCommandLine();
         StringWriter out = new StringWriter();
@@ -121,6 +125,43 @@ class CohortCommandTest {
         assertEquals(1, CsvText.parse(Files.readString(out.resolve("cohort-failures.csv"))).size());
     }
 
+    @Test
+    void remoteStorageIsReadAndWrittenThroughTheFileSystemApi() throws Exception {
+        // farfs:// is the local disk seen as a remote store (FarFileSystem): units are copied to the
+        // executor's scratch, outputs published by copy and rename, tables written through Hadoop
+        Path far = dir.resolve("far");
+        SyntheticCohort c = new SyntheticCohort(far.resolve("bids"), 6, 5, 2);
+        c.subject("11", null, 21);
+        c.subject("12", "pre", 22);
+        c.labels("12", "pre");
+        c.mask("11");
+        c.mask("12");
+        String in = FarFileSystem.SCHEME + "://" + far.resolve("bids").toAbsolutePath();
+        String outUri = FarFileSystem.SCHEME + "://" + far.resolve("out").toAbsolutePath();
+        CommandLine cl = Main.newCommandLine();
+        StringWriter err = new StringWriter();
+        cl.setOut(new PrintWriter(new StringWriter(), true));
+        cl.setErr(new PrintWriter(err, true));
+        int code = cl.execute("cohort", in, outUri, "--master", "local[2]", "--labels", "dseg",
+                "--mask", "derivatives/masks/sub-{sub}_mask.nii.gz");
+        assertEquals(0, code, err.toString());
+        Path out = far.resolve("out");
+        List<CohortRow> rows = table(out);
+        assertEquals(List.of("11", "12"), rows.stream().map(CohortRow::subject).distinct().sorted().toList());
+        assertTrue(rows.stream().filter(r -> r.subject().equals("12")).allMatch(r -> List.of("1", "2")
+                .contains(r.stats().region())), "the session's label image was fetched with the unit");
+        NiftiImage status = Nifti.read(out.resolve("sub-11/anat/sub-11_desc-fitstatus_dseg.nii.gz"));
+        for (int i = 0; i < status.size(); i++) {
+            assertEquals(mask[i] == 0, status.get(i) == 0, "the mask pattern was fetched: voxel " + i);
+        }
+        assertTrue(Files.isRegularFile(out.resolve("sub-12/ses-pre/anat/sub-12_ses-pre_T2map.nii.gz")));
+        assertTrue(Files.isRegularFile(out.resolve("dataset_description.json")));
+        try (Stream<Path> files = Files.walk(out)) {
+            assertTrue(files.noneMatch(f -> f.getFileName().toString().contains(".tmp-")), "no temporaries left");
+        }
+        assertEquals(rows.size(), SharedSpark.get().read().parquet(out.resolve("cohort-table.parquet").toString()).count());
+    }
+
     private static List<CohortRow> table(Path out) throws IOException {
         List<List<String>> t = CsvText.parse(Files.readString(out.resolve("cohort-table.csv")));
         assertEquals(CohortRow.COLUMNS, t.get(0));
@@ -145,6 +186,10 @@ class CohortCommandTest {
         List<Double> v = new ArrayList<>();
         for (int i = 0; i < map.header().voxelsPerVolume(); i++) {
             int s = (int) status.get(i);
+            if (mask[i] == 0) {
+                assertEquals(0, s, "outside the mask: status outside_mask");
+                assertTrue(Double.isNaN(map.get(i)), "outside the mask: NaN by default");
+            }
             boolean inLabel = r.stats().region().equals("mask") || labels[i] == Float.parseFloat(r.stats().region());
             if (inLabel && (s == 1 || s == 2 || s == 3 || s == 5) && Double.isFinite(map.get(i))) {
                 v.add(map.get(i));

@@ -99,4 +99,21 @@ final class SyntheticCohort {
                 NiftiHeader.create(NiftiDatatype.UINT8, nx, ny, nz), l, false);
         return l;
     }
+
+    /**
+     * Writes a brain mask (every voxel but the first row, y = 0) for a subject under
+     * {@code derivatives/masks/}, as a mask pattern {@code derivatives/masks/sub-{sub}_mask.nii.gz} finds it.
+     *
+     * @return the mask values per voxel
+     */
+    float[] mask(String sub) throws IOException {
+        int nv = nx * ny * nz;
+        float[] m = new float[nv];
+        for (int v = 0; v < nv; v++) {
+            m[v] = (v / nx) % ny == 0 ? 0 : 1;
+        }
+        Path dir = Files.createDirectories(root.resolve("derivatives").resolve("masks"));
+        Nifti.write(dir.resolve("sub-" + sub + "_mask.nii.gz"), NiftiHeader.create(NiftiDatatype.UINT8, nx, ny, nz), m, false);
+        return m;
+    }
 }

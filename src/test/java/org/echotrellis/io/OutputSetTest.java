@@ -54,6 +54,31 @@ class OutputSetTest {
         assertEquals(List.of(), hidden(out));
     }
 
+    private static void namedRun(Path out, String set, String... names) {
+        try (OutputSet s = OutputSet.openNamed(out, set, true, List.of())) {
+            for (String n : names) {
+                AtomicFiles.writeString(out.resolve(n), set + " " + n, true);
+            }
+            s.commit();
+        }
+    }
+
+    @Test
+    void namedSetsShareADirectoryAndEachReplacesOnlyItsOwnFiles() throws IOException {
+        Path out = dir.resolve("anat");
+        namedRun(out, "sub-01_fit", "sub-01_T2map.nii.gz", "sub-01_desc-epgfit_TB1map.nii.gz");
+        namedRun(out, "sub-01_spectrum", "sub-01_MWFmap.nii.gz");
+        namedRun(out, "sub-02_fit", "sub-02_T2map.nii.gz");
+        namedRun(out, "sub-01_fit", "sub-01_T2map.nii.gz");  // a refit without the B1 map
+        assertFalse(Files.exists(out.resolve("sub-01_desc-epgfit_TB1map.nii.gz")), "left by the set's previous run");
+        assertEquals("sub-01_spectrum sub-01_MWFmap.nii.gz", Files.readString(out.resolve("sub-01_MWFmap.nii.gz")));
+        assertEquals("sub-02_fit sub-02_T2map.nii.gz", Files.readString(out.resolve("sub-02_T2map.nii.gz")));
+        assertEquals(List.of("sub-01_T2map.nii.gz"), Files.readAllLines(out.resolve(OutputSet.MANIFEST + "-sub-01_fit")));
+        assertFalse(Files.exists(out.resolve(OutputSet.MANIFEST)), "no unnamed manifest");
+        assertEquals(List.of(), hidden(out));
+        assertThrows(IllegalArgumentException.class, () -> OutputSet.openNamed(out, "../escape", true, List.of()));
+    }
+
     @Test
     void aCommitReplacesTheWholeSetAndRemovesOutputsThePreviousRunWroteOnly() throws IOException {
         Path out = dir.resolve("o");

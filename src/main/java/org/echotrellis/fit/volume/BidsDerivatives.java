@@ -16,9 +16,11 @@ import org.echotrellis.io.Nifti;
 import org.echotrellis.io.NiftiHeader;
 import org.echotrellis.io.NiftiImage;
 import org.echotrellis.io.NiftiInput;
+import org.echotrellis.io.OutputSet;
 import org.echotrellis.io.ProgressReporter;
 import org.echotrellis.io.Provenance;
 import org.echotrellis.io.RunSummary;
+import org.echotrellis.io.bids.BidsImages;
 import org.echotrellis.io.bids.MeseCollection;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolText;
@@ -37,10 +39,44 @@ public final class BidsDerivatives {
 
     private BidsDerivatives() { }
 
-    /** Everything one collection's run needs besides the collection. */
+    /**
+     * Everything one collection's run needs besides the collection.
+     *
+     * @param fit the fit settings, or empty for no fit
+     * @param spectrum the spectrum choices (resolved per collection protocol), or empty for no spectrum
+     * @param b1Override a B1 map for every collection instead of the ones found in {@code fmap/}
+     * @param b1OverrideFactor factor from the override's values to a flip-angle scale (0.01 for percent)
+     * @param mask the mask choice of {@link BidsImages#find} ({@value BidsImages#MASK} or a path pattern),
+     *        or empty to fit every voxel
+     * @param outsideMask value of the maps outside the mask (NaN, or 0 for tools that dislike NaN)
+     * @param threads worker threads
+     * @param force replace existing outputs
+     * @param commandLine the command line, for provenance
+     */
     public record Settings(Optional<FitOptions> fit, Optional<org.echotrellis.fit.spectrum.SpectrumChoices> spectrum,
-                           Optional<Path> b1Override, double b1OverrideFactor, int threads, boolean force,
-                           String commandLine) { }
+                           Optional<Path> b1Override, double b1OverrideFactor, Optional<String> mask, float outsideMask,
+                           int threads, boolean force, String commandLine) {
+        /**
+         * Checks that at least one analysis is requested.
+         *
+         * @param fit the fit settings, or empty for no fit
+         * @param spectrum the spectrum choices (resolved per collection protocol), or empty for no spectrum
+         * @param b1Override a B1 map for every collection instead of the ones found in {@code fmap/}
+         * @param b1OverrideFactor factor from the override's values to a flip-angle scale (0.01 for percent)
+         * @param mask the mask choice of {@link BidsImages#find} ({@value BidsImages#MASK} or a path pattern),
+         *        or empty to fit every voxel
+         * @param outsideMask value of the maps outside the mask (NaN, or 0 for tools that dislike NaN)
+         * @param threads worker threads
+         * @param force replace existing outputs
+         * @param commandLine the command line, for provenance
+         * @throws IllegalArgumentException if the values are inconsistent
+         */
+        public Settings {
+            if (fit.isEmpty() && spectrum.isEmpty()) {
+                throw new IllegalArgumentException("BIDS derivatives need fit or spectrum settings");
+            }
+        }
+    }
 
     /**
      * Writes {@code dataset_description.json} of the derivatives dataset.
@@ -104,9 +140,12 @@ public final class BidsDerivatives {
     }
 
     /**
-     * Runs and writes one collection.
+     * Runs and writes one collection. Each analysis's files are one output set of the collection's
+     * folder ({@link OutputSet#openNamed}, named by the collection prefix and the analysis): they
+     * appear together once the analysis has finished, replace the previous run's files of the same set
+     * together, and never touch the files of other collections or of the other analysis.
      *
-     * @param root the BIDS dataset root (for the Sources URIs)
+     * @param root the BIDS dataset root (for the Sources URIs and the mask pattern)
      * @param c the collection
      * @param protocol the resolved protocol
      * @param acquisition the sidecar values used (BIDS keys)
@@ -120,56 +159,80 @@ public final class BidsDerivatives {
         for (Path f : plannedFiles(c, s)) {
             AtomicFiles.checkWritable(outDir.resolve(f), s.force());
         }
+        Optional<Path> maskFile = s.mask().map(m -> BidsImages.require(m, BidsImages.MASK, root, c));
+        Optional<NiftiImage> mask = maskFile.map(Nifti::read);
         Optional<NiftiImage> b1 = b1Map(c, s);
         List<String> sources = new ArrayList<>();
         List<Path> inputs = new ArrayList<>(c.echoFiles());
         for (Path e : c.echoFiles()) {
-            sources.add("bids:raw:" + root.relativize(e).toString().replace('\\', '/'));
+            sources.add(bidsUri(root, e));
         }
         if (s.b1Override().isPresent()) {
             sources.add(s.b1Override().get().toAbsolutePath().toUri().toString());
             inputs.add(s.b1Override().get());
         } else if (c.b1Map().isPresent()) {
-            sources.add("bids:raw:" + root.relativize(c.b1Map().get()).toString().replace('\\', '/'));
+            sources.add(bidsUri(root, c.b1Map().get()));
             inputs.add(c.b1Map().get());
+        }
+        if (maskFile.isPresent()) {
+            sources.add(bidsUri(root, maskFile.get()));
+            inputs.add(maskFile.get());
         }
         Path dir = outDir.resolve(c.relativeDir());
         String p = c.prefix();
         List<Path> written = new ArrayList<>();
         Map<String, Object> provenance = Provenance.of(s.commandLine(), inputs, protocol.text());
+        float fill = s.outsideMask();
         try (NiftiInput series = EchoStack.open(c.echoFiles(), c.label())) {
             Protocol parsed = protocol.parse();
             if (s.fit().isPresent()) {
                 VolumeAnalysis a = VolumeAnalysis.fit(parsed, s.fit().get());
-                VolumeMaps m = a.run(series, Optional.empty(), b1, s.threads(), progress);
+                VolumeMaps m = a.run(series, mask, b1, s.threads(), progress);
                 Map<String, Object> side = sidecarBase(sources, acquisition, a,
                         "EPG fit of amplitude, T2 and B1 per voxel with stimulated echoes included",
                         "Lebel RM, Wilman AH. Transverse relaxometry with stimulated echo compensation. Magn Reson Med 2010;64:1005-1014");
-                written.addAll(map(dir, p + "_T2map", m, m.map("t2_ms"), 0.001, "s", "T2 (s)", side, s.force()));
-                written.addAll(map(dir, p + "_M0map", m, m.map("amplitude"), 1, "arbitrary", "M0 (signal units)", side, s.force()));
-                if (m.mapNames().contains("b1_scale")) {
-                    written.addAll(map(dir, p + "_desc-epgfit_TB1map", m, m.map("b1_scale"), 100, "percent",
-                            "flip-angle scale (percent)", side, s.force()));
+                try (OutputSet set = OutputSet.openNamed(dir, p + "_fit", s.force(), inputs)) {
+                    List<Path> files = new ArrayList<>();
+                    files.addAll(map(dir, p + "_T2map", m, m.filled("t2_ms", fill), 0.001, "s", "T2 (s)", side, s.force()));
+                    files.addAll(map(dir, p + "_M0map", m, m.filled("amplitude", fill), 1, "arbitrary", "M0 (signal units)",
+                            side, s.force()));
+                    if (m.mapNames().contains("b1_scale")) {
+                        files.addAll(map(dir, p + "_desc-epgfit_TB1map", m, m.filled("b1_scale", fill), 100, "percent",
+                                "flip-angle scale (percent)", side, s.force()));
+                    }
+                    files.addAll(status(dir, p + "_desc-fitstatus_dseg", m, side, s.force()));
+                    files.add(summary(dir.resolve(p + "_desc-fit_summary.json"), m, c, provenance, s.force()));
+                    set.commit();
+                    written.addAll(files);
                 }
-                written.addAll(status(dir, p + "_desc-fitstatus_dseg", m, side, s.force()));
-                written.add(summary(dir.resolve(p + "_desc-fit_summary.json"), m, c, provenance, s.force()));
             }
             if (s.spectrum().isPresent()) {
                 VolumeAnalysis a = VolumeAnalysis.spectrum(parsed, s.spectrum().get().resolve(parsed));
-                VolumeMaps m = a.run(series, Optional.empty(), Optional.empty(), s.threads(), progress);
+                VolumeMaps m = a.run(series, mask, Optional.empty(), s.threads(), progress);
                 Map<String, Object> side = sidecarBase(sources, acquisition, a,
                         "non-negative least-squares T2 spectrum on an EPG basis with refocusing-angle refinement; "
                                 + "MWF = fraction of the first T2 window",
                         "Prasloski T, Maedler B, Xiang QS, MacKay A, Laule C. Applications of stimulated echo correction "
                                 + "to multicomponent T2 analysis. Magn Reson Med 2012;67:1803-1814");
                 String fraction = m.mapNames().stream().filter(n -> n.startsWith("fraction_")).findFirst().orElseThrow();
-                written.addAll(map(dir, p + "_MWFmap", m, m.map(fraction), 100, "percent",
-                        "myelin water fraction (percent)", side, s.force()));
-                written.addAll(status(dir, p + "_desc-spectrumstatus_dseg", m, side, s.force()));
-                written.add(summary(dir.resolve(p + "_desc-spectrum_summary.json"), m, c, provenance, s.force()));
+                try (OutputSet set = OutputSet.openNamed(dir, p + "_spectrum", s.force(), inputs)) {
+                    List<Path> files = new ArrayList<>();
+                    files.addAll(map(dir, p + "_MWFmap", m, m.filled(fraction, fill), 100, "percent",
+                            "myelin water fraction (percent)", side, s.force()));
+                    files.addAll(status(dir, p + "_desc-spectrumstatus_dseg", m, side, s.force()));
+                    files.add(summary(dir.resolve(p + "_desc-spectrum_summary.json"), m, c, provenance, s.force()));
+                    set.commit();
+                    written.addAll(files);
+                }
             }
         }
         return written;
+    }
+
+    private static String bidsUri(Path root, Path file) {
+        Path abs = file.toAbsolutePath().normalize();
+        Path r = root.toAbsolutePath().normalize();
+        return abs.startsWith(r) ? "bids:raw:" + r.relativize(abs).toString().replace('\\', '/') : abs.toUri().toString();
     }
 
     private static Optional<NiftiImage> b1Map(MeseCollection c, Settings s) {

@@ -11,6 +11,7 @@ import java.util.List;
  * @param stage {@code read} (collections, sidecars, protocol), {@code analysis} (reading the series,
  *        fit/spectrum, writing the maps), {@code labels} or {@code write} (statistics, publishing)
  * @param message one line naming the file and the problem
+ * @serial exclude
  */
 public record CohortFailure(String subject, String session, String stage, String message) implements Serializable {
     private static final long serialVersionUID = 1L;

@@ -34,11 +34,13 @@ public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes,
         echoes180 = echoes180.clone();
     }
 
+    /** @return |echo| per echo under the schedule (a copy) */
     @Override
     public double[] echoes() {
         return echoes.clone();
     }
 
+    /** @return |echo| per echo under all-180° refocusing (a copy) */
     @Override
     public double[] echoes180() {
         return echoes180.clone();

@@ -49,17 +49,31 @@ public record DesignProblem(String tissueName, int echoes, double echoSpacingMs,
         tissueName = tissueName == null ? "design tissue" : tissueName;
     }
 
-    /** @return a copy for another tissue (same train and bounds) */
+    /**
+     * @param name label of the tissue (for reports)
+     * @param t1 the tissue's T1 in ms (+Infinity allowed)
+     * @param t2 the tissue's T2 in ms (+Infinity allowed)
+     * @return a copy for another tissue (same train and bounds)
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public DesignProblem withTissue(String name, double t1, double t2) {
         return new DesignProblem(name, echoes, echoSpacingMs, excitationFlipDeg, t1, t2, b1Scale, minFlipDeg, maxFlipDeg);
     }
 
-    /** @return a copy with other flip bounds */
+    /**
+     * @param minDeg lowest allowed nominal refocusing flip in degrees, 0 to 180
+     * @param maxDeg highest allowed nominal refocusing flip in degrees, {@code minDeg} to 180
+     * @return a copy with other flip bounds
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public DesignProblem withFlipBounds(double minDeg, double maxDeg) {
         return new DesignProblem(tissueName, echoes, echoSpacingMs, excitationFlipDeg, t1Ms, t2Ms, b1Scale, minDeg, maxDeg);
     }
 
-    /** @return echo time of echo n (1-based) in ms */
+    /**
+     * @param n echo number, 1-based
+     * @return echo time of echo n (1-based) in ms
+     */
     public double echoTimeMs(int n) {
         return n * echoSpacingMs;
     }

@@ -64,16 +64,19 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
         comparisons = List.copyOf(comparisons);
     }
 
+    /** @return nominal refocusing flips (a copy) */
     @Override
     public double[] flipsDeg() {
         return flipsDeg.clone();
     }
 
+    /** @return signed echoes of the design tissue (a copy) */
     @Override
     public double[] predicted() {
         return predicted.clone();
     }
 
+    /** @return effective target per echo (prescribed mode), else empty (a copy) */
     @Override
     public double[] target() {
         return target.clone();

@@ -147,6 +147,7 @@ public sealed interface EchoTarget {
             }
         }
 
+        /** @return the target amplitude of every echo, in [0, 1] (a copy) */
         @Override
         public double[] values() {
             return values.clone();

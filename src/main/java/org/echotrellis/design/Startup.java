@@ -17,7 +17,10 @@ import org.echotrellis.InputException;
  * </ul>
  */
 public sealed interface Startup {
-    /** @return number of start-up echoes for a train of the given length */
+    /**
+     * @param trainEchoes echoes of the whole train
+     * @return number of start-up echoes for a train of the given length
+     */
     int echoes(int trainEchoes);
 
     /** @return option syntax */

@@ -81,42 +81,69 @@ public record CpmgTrain(int echoes, double echoSpacingMs, double excitationFlipD
         return new CpmgTrain(echoes, echoSpacingMs, excitationDeg, 90, refocusDeg, new double[echoes]);
     }
 
-    /** @return a copy with other refocusing flips (same phases) */
+    /**
+     * @param flipsDeg refocusing flips in degrees, one per echo, 0 to 360 (copied)
+     * @return a copy with other refocusing flips (same phases)
+     * @throws org.echotrellis.InputException if the new value breaks the rules of the constructor
+     */
     public CpmgTrain withRefocusFlipsDeg(double[] flipsDeg) {
         return new CpmgTrain(echoes, echoSpacingMs, excitationFlipDeg, excitationPhaseDeg, flipsDeg, refocusPhasesDeg);
     }
 
-    /** @return a copy with another excitation flip */
+    /**
+     * @param flipDeg excitation flip in degrees, 0 to 360
+     * @return a copy with another excitation flip
+     * @throws org.echotrellis.InputException if the new value breaks the rules of the constructor
+     */
     public CpmgTrain withExcitationFlipDeg(double flipDeg) {
         return new CpmgTrain(echoes, echoSpacingMs, flipDeg, excitationPhaseDeg, refocusFlipsDeg, refocusPhasesDeg);
     }
 
-    /** @return a copy with another echo spacing */
+    /**
+     * @param espMs echo spacing ESP in ms, &gt; 0
+     * @return a copy with another echo spacing
+     * @throws org.echotrellis.InputException if the new value breaks the rules of the constructor
+     */
     public CpmgTrain withEchoSpacingMs(double espMs) {
         return new CpmgTrain(echoes, espMs, excitationFlipDeg, excitationPhaseDeg, refocusFlipsDeg, refocusPhasesDeg);
     }
 
-    /** @return refocusing flip of pulse i (0-based) in degrees */
+    /**
+     * @param i pulse index, 0-based
+     * @return refocusing flip of pulse i (0-based) in degrees
+     */
     public double refocusFlipDeg(int i) {
         return refocusFlipsDeg[i];
     }
 
-    /** @return refocusing phase of pulse i (0-based) in degrees */
+    /**
+     * @param i pulse index, 0-based
+     * @return refocusing phase of pulse i (0-based) in degrees
+     */
     public double refocusPhaseDeg(int i) {
         return refocusPhasesDeg[i];
     }
 
+    /**
+     * @return the refocusing flip of every pulse in degrees (a copy)
+     */
     @Override
     public double[] refocusFlipsDeg() {
         return refocusFlipsDeg.clone();
     }
 
+    /**
+     * @return the refocusing RF phase of every pulse in degrees (a copy)
+     */
     @Override
     public double[] refocusPhasesDeg() {
         return refocusPhasesDeg.clone();
     }
 
-    /** @return echo time of echo n (1-based) in ms */
+    /**
+     * @param n echo number, 1-based
+     * @return echo time of echo n (1-based) in ms
+     */
     public double echoTimeMs(int n) {
         return n * echoSpacingMs;
     }

@@ -80,32 +80,57 @@ public record FitSettings(Protocol protocol, double t1Ms, double t2MinMs, double
         return protocol.cpmg().orElseThrow();
     }
 
-    /** @return a copy with another noise σ (NaN for none) */
+    /**
+     * @param sigma channel noise σ in signal units for the Rician mean model, or NaN for plain least squares
+     * @return a copy with another noise σ (NaN for none)
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withNoiseSigma(double sigma) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, sigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with another fixed T1 */
+    /**
+     * @param t1 fixed T1 in ms, &gt; 0 (+Infinity for none)
+     * @return a copy with another fixed T1
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withT1Ms(double t1) {
         return new FitSettings(protocol, t1, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with other T2 bounds */
+    /**
+     * @param lo lower T2 bound in ms, &gt; 0
+     * @param hi upper T2 bound in ms, &gt; {@code lo}
+     * @return a copy with other T2 bounds
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withT2Bounds(double lo, double hi) {
         return new FitSettings(protocol, t1Ms, lo, hi, b1Min, b1Max, fold, noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with other B1 bounds */
+    /**
+     * @param lo lower B1 bound (scale of the nominal flips), &gt; 0
+     * @param hi upper B1 bound before folding, &gt; {@code lo}
+     * @return a copy with other B1 bounds
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withB1Bounds(double lo, double hi) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, lo, hi, fold, noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with other mono-exponential options */
+    /**
+     * @param offset fit a constant offset in the mono-exponential model
+     * @param skipFirst drop the first echo in the mono-exponential model
+     * @return a copy with other mono-exponential options
+     */
     public FitSettings withMono(boolean offset, boolean skipFirst) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, offset, skipFirst);
     }
 
-    /** @return a copy with folding on or off */
+    /**
+     * @param f report the folded B1 where the train is symmetric about a 180° refocusing angle
+     * @return a copy with folding on or off
+     */
     public FitSettings withFold(boolean f) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, f, noiseSigma, monoOffset, monoSkipFirst);
     }

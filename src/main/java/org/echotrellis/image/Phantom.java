@@ -35,6 +35,7 @@ public record Phantom(int rows, int cols, int[] region, String description) {
         region = region.clone();
     }
 
+    /** @return tissue index of every pixel, or −1 (a copy) */
     @Override
     public int[] region() {
         return region.clone();
@@ -107,7 +108,11 @@ public record Phantom(int rows, int cols, int[] region, String description) {
         return new Phantom(rows, cols, region, source);
     }
 
-    /** @return the label values of a label image that a mapping leaves without a tissue, sorted */
+    /**
+     * @param labels label value of every pixel of the label image
+     * @param mapping label value to tissue name
+     * @return the label values of a label image that a mapping leaves without a tissue, sorted
+     */
     public static List<Integer> unmapped(int[] labels, Map<Integer, String> mapping) {
         TreeSet<Integer> out = new TreeSet<>();
         for (int v : labels) {

@@ -27,11 +27,13 @@ public record PhantomImages(int rows, int cols, double[] ideal, double[] simulat
         simulated = simulated.clone();
     }
 
+    /** @return every tissue at its centre weight, no blurring and no noise (a copy) */
     @Override
     public double[] ideal() {
         return ideal.clone();
     }
 
+    /** @return the image after k-space weighting, noise and magnitude (a copy) */
     @Override
     public double[] simulated() {
         return simulated.clone();

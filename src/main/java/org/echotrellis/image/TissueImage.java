@@ -30,11 +30,13 @@ public record TissueImage(Tissue tissue, double effectiveTeMs, double centerSign
         psf = psf.clone();
     }
 
+    /** @return weight of every phase-encoding line j = 0 … L−1 (a copy) */
     @Override
     public double[] weights() {
         return weights.clone();
     }
 
+    /** @return centred PSF magnitude, element i is pixel i − ⌊L/2⌋ (see {@link PointSpread}) (a copy) */
     @Override
     public double[] psf() {
         return psf.clone();

@@ -45,11 +45,13 @@ public record DecayTable(String source, List<String> names, double[] echoTimesMs
         return decays[c].clone();
     }
 
+    /** @return echo times in ms, strictly increasing (a copy) */
     @Override
     public double[] echoTimesMs() {
         return echoTimesMs.clone();
     }
 
+    /** @return decays[c][n] = value of decay c at echo n */
     @Override
     public double[][] decays() {
         return deepCopy(decays);

@@ -36,6 +36,7 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
         labels = labels.clone();
     }
 
+    /** @return label of every pixel (a copy) */
     @Override
     public int[] labels() {
         return labels.clone();

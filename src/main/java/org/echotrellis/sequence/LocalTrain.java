@@ -36,16 +36,19 @@ public record LocalTrain(double weight, double excitationFlipDeg, double excitat
         echoPhaseRad = echoPhaseRad.clone();
     }
 
+    /** @return local refocusing flips (a copy) */
     @Override
     public double[] refocusFlipsDeg() {
         return refocusFlipsDeg.clone();
     }
 
+    /** @return local refocusing phases φ' (a copy) */
     @Override
     public double[] refocusPhasesDeg() {
         return refocusPhasesDeg.clone();
     }
 
+    /** @return Ψ<sub>n</sub> per echo (a copy) */
     @Override
     public double[] echoPhaseRad() {
         return echoPhaseRad.clone();

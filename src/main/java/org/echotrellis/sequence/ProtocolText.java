@@ -18,6 +18,7 @@ import org.echotrellis.InputFiles;
  * @param text the YAML or JSON document
  * @param source the name used in messages (usually the file path)
  * @param yaml true for YAML, false for JSON
+ * @serial exclude
  */
 public record ProtocolText(String text, String source, boolean yaml) implements Serializable {
     private static final long serialVersionUID = 1L;

@@ -55,7 +55,12 @@ public final class Simulator {
         return m;
     }
 
-    /** Simulates with the protocol's own tissue and B1 scale. */
+    /**
+     * Simulates with the protocol's own tissue and B1 scale.
+     *
+     * @param p the protocol; its tissue's T1 and T2 and its B1 scale are used
+     * @return the echo train of the protocol
+     */
     public static EchoTrain simulate(Protocol p) {
         return simulate(p, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale());
     }

@@ -10,6 +10,7 @@ import org.echotrellis.Checks;
  *
  * @param loMs lower edge in ms
  * @param hiMs upper edge in ms
+ * @serial exclude
  */
 public record FractionWindow(double loMs, double hiMs) implements java.io.Serializable {
 

@@ -17,6 +17,7 @@ import org.echotrellis.InputException;
  * @param loDeg smallest angle in degrees, (0, 360]
  * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 360
  * @param count number of equally spaced coarse angles (1 = fixed angle loDeg, else ≥ 3)
+ * @serial exclude
  */
 public record RefocusSearch(double loDeg, double hiDeg, int count) implements java.io.Serializable {
 

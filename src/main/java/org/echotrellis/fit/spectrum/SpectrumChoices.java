@@ -21,6 +21,7 @@ import org.echotrellis.sequence.Protocol;
  * @param regularisation the regularisation, or null for the default (misfit)
  * @param misfitIncrease the misfit target factor, or NaN for {@link SpectrumOptions#misfitIncreaseFor}
  * @param search the refocusing-angle search (or fixed angle), or null for the protocol's default
+ * @serial exclude
  */
 public record SpectrumChoices(double t1Ms, List<FractionWindow> windows, double t2MinMs, double t2MaxMs, int t2Bins,
                               Regularisation regularisation, double misfitIncrease, RefocusSearch search)

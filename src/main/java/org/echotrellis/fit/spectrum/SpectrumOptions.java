@@ -15,6 +15,7 @@ import org.echotrellis.sequence.Protocol;
  * @param misfitIncrease χ²(μ)/χ²(0) target of {@link Regularisation#MISFIT} (default 1 + 1/(4·echoes))
  * @param search         refocusing angles searched (or one fixed angle)
  * @param windows        T2 windows whose fractions are reported (at least one)
+ * @serial exclude
  */
 public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularisation, double misfitIncrease,
                               RefocusSearch search, List<FractionWindow> windows)

@@ -18,6 +18,7 @@ import org.echotrellis.Checks;
  * @param minMs shortest T2 in ms (first bin)
  * @param maxMs longest T2 in ms (last bin)
  * @param bins number of grid points (≥ 2)
+ * @serial exclude
  */
 public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Serializable {
 

@@ -27,6 +27,7 @@ import org.echotrellis.sequence.Protocol;
  * @param monoOffset fit a constant offset in the mono-exponential model
  * @param monoSkipFirst drop the first echo in the mono-exponential model
  * @param compareMono also fit the mono-exponential model (EPG model only; map {@code mono_t2_ms})
+ * @serial exclude
  */
 public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2MaxMs, double b1Min, double b1Max,
                          boolean fold, double noiseSigma, boolean noiseFromBackground, boolean monoOffset,

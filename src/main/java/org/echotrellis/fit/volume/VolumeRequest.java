@@ -14,6 +14,7 @@ import org.echotrellis.sequence.ProtocolText;
  * @param kind fit or spectrum
  * @param fit the fit settings ({@link VolumeAnalysis.Kind#FIT}; null otherwise)
  * @param spectrum the spectrum settings ({@link VolumeAnalysis.Kind#SPECTRUM}; null otherwise)
+ * @serial exclude
  */
 public record VolumeRequest(ProtocolText protocol, VolumeAnalysis.Kind kind, FitOptions fit,
                             SpectrumOptions spectrum) implements Serializable {

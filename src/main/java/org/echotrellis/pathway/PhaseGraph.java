@@ -3,8 +3,9 @@ package org.echotrellis.pathway;
 import java.util.List;
 
 /**
- * The data of a phase-graph diagram: every configuration state held during every interval, as a
- * line segment in (time, dephasing order) with the state's magnitude, plus the RF pulses and echoes.
+ * The data of a phase-graph diagram (Hennig, J Magn Reson 78:397, 1988): every configuration state
+ * held during every interval, as a line segment in (time, dephasing order) with the state's
+ * magnitude, plus the RF pulses and echoes.
  * Only states that can still reach an echo are included, and only those above the tracing threshold.
  *
  * @param segments the state segments, in time order

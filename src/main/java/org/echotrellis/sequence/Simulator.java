@@ -8,8 +8,9 @@ import org.echotrellis.epg.EpgProgram;
 import org.echotrellis.epg.GeneralEngine;
 
 /**
- * Runs a {@link Protocol} through the EPG engine: the real CPMG fast path when the protocol
- * qualifies ({@link Protocol#cpmg()}), the general complex engine otherwise; a protocol whose
+ * Runs a {@link Protocol} through the extended-phase-graph engine (Hennig 1988; Weigel 2015): the
+ * real CPMG fast path when the protocol qualifies ({@link Protocol#cpmg()}), the general complex
+ * engine otherwise; a protocol whose
  * acquisition is not ideal (slice-selective pulses, a repetition time, or diffusion with crushers) runs
  * through its {@link AcquisitionModel} (the whole acquisition: slice integral, steady state, diffusion).
  * Thread-safe: engines are kept one per thread; acquisition models are cached for the last few protocols.

@@ -3,7 +3,9 @@ package org.echotrellis.fit.spectrum;
 import java.util.List;
 
 /**
- * The T2 spectrum of one decay and its derived numbers. Arrays are copied in and out.
+ * The T2 spectrum of one decay and its derived numbers, as fitted by {@link SpectrumFitter}
+ * (regularised NNLS, Whittall &amp; MacKay 1989, on EPG bases with the refocusing angle estimated as
+ * in Prasloski et al. 2012). Arrays are copied in and out.
  *
  * @param name               label of the decay (table row or voxel)
  * @param t2Ms               T2 grid in ms

@@ -73,7 +73,7 @@ public final class PathwaySearch {
     private double threshold;
 
     /** Creates a search with empty workspaces (reusable, not thread-safe). */
-    public PathwaySearch() { }
+    PathwaySearch() { }
 
     /**
      * @param s the event list

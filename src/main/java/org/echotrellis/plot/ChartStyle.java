@@ -160,7 +160,7 @@ public final class ChartStyle {
      * @param chart modified in place
      * @return the same chart
      */
-    public static JFreeChart apply(JFreeChart chart) {
+    static JFreeChart apply(JFreeChart chart) {
         chart.setBackgroundPaint(PAGE);
         chart.setAntiAlias(true);
         chart.setTextAntiAlias(true);

@@ -77,7 +77,7 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
      * @param grid the T2 grid
      * @throws org.echotrellis.InputException naming {@code --fraction-window-ms}
      */
-    public void checkWithin(T2Grid grid) {
+    void checkWithin(T2Grid grid) {
         String w = label();
         Checks.require(loMs >= grid.minMs() * (1 - EDGE),
                 "--fraction-window-ms " + w + " starts below the T2 grid (" + grid.minMs() + " ms); allowed "

@@ -29,7 +29,7 @@ public record ImageReport(KSpaceOrdering ordering, double[] echoTimesMs, List<Ti
         pairs = List.copyOf(pairs);
     }
 
-    /** @return echo times of the train in ms (copied) (a copy) */
+    /** @return echo times of the train in ms (a copy) */
     @Override
     public double[] echoTimesMs() {
         return echoTimesMs.clone();

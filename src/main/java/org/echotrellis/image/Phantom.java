@@ -25,7 +25,8 @@ public record Phantom(int rows, int cols, int[] region, String description) {
      * @param cols number of columns (read-out direction)
      * @param region tissue index of every pixel, or −1
      * @param description a short description for captions
-     * @throws IllegalArgumentException if the values are inconsistent
+     * @throws IllegalArgumentException if a side is below 1 or {@code region} does not hold rows × cols
+     *         pixels
      */
     public Phantom {
         if (rows < 1 || cols < 1 || region.length != rows * cols) {

@@ -36,7 +36,7 @@ public record TissueImage(Tissue tissue, double effectiveTeMs, double centerSign
         return weights.clone();
     }
 
-    /** @return centred PSF magnitude, element i is pixel i − ⌊L/2⌋ (see {@link PointSpread}) (a copy) */
+    /** @return centred PSF magnitude, element i is pixel i − ⌊L/2⌋ (see {@link PointSpread}; a copy) */
     @Override
     public double[] psf() {
         return psf.clone();

@@ -51,7 +51,7 @@ public record DecayTable(String source, List<String> names, double[] echoTimesMs
         return echoTimesMs.clone();
     }
 
-    /** @return decays[c][n] = value of decay c at echo n */
+    /** @return decays[c][n] = value of decay c at echo n (a deep copy) */
     @Override
     public double[][] decays() {
         return deepCopy(decays);

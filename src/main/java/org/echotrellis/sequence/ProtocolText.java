@@ -29,7 +29,7 @@ public record ProtocolText(String text, String source, boolean yaml) implements 
      * @param text the YAML or JSON document
      * @param source the name used in messages (usually the file path)
      * @param yaml true for YAML, false for JSON
-     * @throws IllegalArgumentException if the values are inconsistent
+     * @throws IllegalArgumentException if {@code text} is null
      */
     public ProtocolText {
         if (text == null) {

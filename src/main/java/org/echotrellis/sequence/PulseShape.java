@@ -57,7 +57,7 @@ public record PulseShape(String label, double[] samples) {
                 + ": the envelope has (almost) zero area, so it cannot produce a flip");
     }
 
-    /** @return envelope samples (copied and normalised to peak magnitude 1) (a copy) */
+    /** @return envelope samples (normalised to peak magnitude 1; a copy) */
     @Override
     public double[] samples() {
         return samples.clone();

@@ -69,7 +69,7 @@ public final class BidsDerivatives {
          * @param threads worker threads
          * @param force replace existing outputs
          * @param commandLine the command line, for provenance
-         * @throws IllegalArgumentException if the values are inconsistent
+         * @throws IllegalArgumentException if neither fit nor spectrum settings are given
          */
         public Settings {
             if (fit.isEmpty() && spectrum.isEmpty()) {

@@ -27,7 +27,8 @@ public record VolumeRequest(ProtocolText protocol, VolumeAnalysis.Kind kind, Fit
      * @param kind fit or spectrum
      * @param fit the fit settings ({@link VolumeAnalysis.Kind#FIT}; null otherwise)
      * @param spectrum the spectrum settings ({@link VolumeAnalysis.Kind#SPECTRUM}; null otherwise)
-     * @throws IllegalArgumentException if the values are inconsistent
+     * @throws IllegalArgumentException if the protocol or the kind is null, or the settings of the
+     *         requested kind are missing
      */
     public VolumeRequest {
         if (protocol == null || kind == null) {

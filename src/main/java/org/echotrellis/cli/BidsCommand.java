@@ -135,7 +135,8 @@ final class BidsCommand implements Callable<Integer> {
                 rows.add(reportRow(c, p, files, "done"));
             } catch (InputException e) {
                 failed++;
-                String line = e.getMessage().split("\\R")[0];
+                String line = CliChecks.optionNames(CliChecks.forCommandLine(e.getMessage()), CliChecks.DATASET_KEYS)
+                        .split("\\R")[0];
                 err.println("echotrellis: " + c.label() + ": " + line);
                 rows.add(java.util.Arrays.asList(c.label(), "-", "-", "-", "-", "-", "failed: " + line));
             }
@@ -150,29 +151,41 @@ final class BidsCommand implements Callable<Integer> {
                 "collections", found.size())));
         String headline = done + " of " + found.size() + " collections done" + (failed > 0 ? ", " + failed + " failed" : "");
         report.write("bids: " + bidsDir.getFileName(), force, r -> r.section("Collections")
-                .paragraph(headline + ". T2 statistics over the voxels with a finite T2 in each collection's T2map (seconds"
-                        + " in the file, shown here in ms).")
+                .paragraph(headline + ". T2 statistics over the fitted voxels with a finite T2 in each collection's T2map "
+                        + "(inside the mask when one is given; seconds in the file, shown here in ms).")
                 .table("Collections and their T2 maps", List.of("collection", "echoes", "echo spacing (ms)",
                         "files", "voxels with T2", "median T2 (ms) [IQR]", "status"), rows));
         return failed > 0 ? 2 : 0;
     }
 
     /** One row of the report: the collection, its train, and the median T2 of the map it wrote. */
-    private static List<Object> reportRow(MeseCollection c, Protocol p, List<Path> files, String status) {
+    private static List<Object> reportRow(MeseCollection c, Protocol p, List<Path> files, String outcome) {
         Object echoes = p.echoCount();
         Object esp = p.cpmg().map(t -> (Object) Tables.num(t.echoSpacingMs())).orElse("-");
         Object voxels = "-";
         Object median = "-";
+        Path t2 = null;
+        Path status = null;
         for (Path f : files) {
-            if (f.getFileName().toString().endsWith("_T2map.nii.gz")) {
-                double[] v = org.echotrellis.io.Nifti.read(f).values();
-                double[] finite = java.util.Arrays.stream(v).filter(Double::isFinite).map(x -> 1000 * x).sorted().toArray();
-                org.echotrellis.io.RegionStatistics st = org.echotrellis.io.RegionStatistics.of("all", finite);
-                voxels = st.voxels();
-                median = finite.length == 0 ? "-" : String.format(Locale.ROOT, "%.1f [%.1f–%.1f]", st.p50(), st.p25(), st.p75());
-            }
+            String n = f.getFileName().toString();
+            t2 = n.endsWith("_T2map.nii.gz") ? f : t2;
+            status = n.endsWith("_desc-fitstatus_dseg.nii.gz") ? f : status;
         }
-        return java.util.Arrays.asList(c.label(), echoes, esp, files.size(), voxels, median, status);
+        if (t2 != null && status != null) {
+            // fitted voxels only (inside the mask, whatever fill value lies outside), in ms
+            double[] s = org.echotrellis.io.Nifti.read(status).values();
+            double[] v = org.echotrellis.io.Nifti.read(t2).values();
+            float[] ms = new float[v.length];
+            byte[] codes = new byte[v.length];
+            for (int i = 0; i < v.length; i++) {
+                ms[i] = (float) (1000 * v[i]);
+                codes[i] = (byte) s[i];
+            }
+            org.echotrellis.io.RegionStatistics st = org.echotrellis.io.RegionStatistics.perRegion(ms, codes, null, "").get(0);
+            voxels = st.voxels();
+            median = st.voxels() == 0 ? "-" : String.format(Locale.ROOT, "%.1f [%.1f–%.1f]", st.p50(), st.p25(), st.p75());
+        }
+        return java.util.Arrays.asList(c.label(), echoes, esp, files.size(), voxels, median, outcome);
     }
 
     /** An event-list protocol keeps its own timing: its echo times must be the sidecars'. */

@@ -72,13 +72,6 @@ final class CliChecks {
         throw new InputException("--outside-mask-value must be nan or a finite number (e.g. 0), got " + text);
     }
 
-    /** Library parameter names (summary keys) of the fit and spectrum settings, with their options. */
-    private static final String[] KEYS = {"t2_min_ms", "t2_max_ms", "t1_ms", "b1_min", "b1_max", "noise_sigma"};
-
-    /**
-     * Builds library settings; an input error naming a parameter by its summary key (e.g.
-     * {@code t2_max_ms}) is reported under the option of the same name ({@code --t2-max-ms}).
-     */
     /**
      * @param t1Ms the value of {@code --t1-ms}, or null when not given
      * @return it, or NaN for "T1 of each protocol's tissue" (the library options' convention)
@@ -87,16 +80,99 @@ final class CliChecks {
         return t1Ms == null ? Double.NaN : t1Ms;
     }
 
+    /** Library keys of the fit and spectrum settings; each is given by the option of the same name. */
+    static final String[] FIT_KEYS = {"t1_ms", "t2_min_ms", "t2_max_ms", "t2_bins", "b1_min", "b1_max", "noise_sigma",
+        "misfit_increase", "fraction_window_ms", "refocus_search_deg", "refocus_deg", "regularisation"};
+
+    /**
+     * Library keys of the settings of a dataset run ({@code bids}, {@code cohort}) that a collection or
+     * subject can refuse: the spectrum grid is given there by {@code --spectrum-t2-min-ms} and
+     * {@code --spectrum-t2-max-ms}.
+     */
+    static final String[] DATASET_KEYS = {"t1_ms", "fraction_window_ms", "noise_sigma",
+        "t2_min_ms=--spectrum-t2-min-ms", "t2_max_ms=--spectrum-t2-max-ms"};
+
+    /** Builds fit or spectrum settings; see {@link #asOptions(java.util.function.Supplier, String...)} with {@link #FIT_KEYS}. */
     static <T> T asOptions(java.util.function.Supplier<T> build) {
+        return asOptions(build, FIT_KEYS);
+    }
+
+    /**
+     * Runs library code whose input errors name parameters by their library keys ({@code t2_max_ms},
+     * {@code objective}) and reports them under the options that give those parameters
+     * ({@code --t2-max-ms}, {@code --objective}); see {@link #optionNames(String, String...)}.
+     *
+     * @param build the library call
+     * @param keys the library keys this call's options give
+     * @return what the call returns
+     */
+    static <T> T asOptions(java.util.function.Supplier<T> build, String... keys) {
         try {
             return build.get();
         } catch (InputException e) {
-            String m = e.getMessage();
-            for (String k : KEYS) {
-                m = m.replaceAll("\\b" + k + "\\b", "--" + k.replace('_', '-'));
+            String m = optionNames(e.getMessage(), keys);
+            if (m.equals(e.getMessage())) {
+                throw e;
             }
             throw new InputException(m, e);
         }
+    }
+
+    /** {@link #asOptions(java.util.function.Supplier, String...)} for a call without a result. */
+    static void checkAsOptions(Runnable check, String... keys) {
+        asOptions(() -> {
+            check.run();
+            return null;
+        }, keys);
+    }
+
+    /**
+     * Names options instead of library keys in a message. A key is given by the option of the same
+     * words ({@code b1rms_limit_ut}: {@code --b1rms-limit-ut}), or by the option after '=' ({@code
+     * key=--option}). A snake_case key is replaced wherever it stands as a word (not inside a path or
+     * a longer name); a plain word ({@code objective}, {@code out}) only where it opens the message or
+     * stands alone in parentheses, so that the same word in prose stays as it is.
+     *
+     * @param message a library message
+     * @param keys library keys
+     * @return the message for the command line
+     */
+    static String optionNames(String message, String... keys) {
+        String m = message == null ? "" : message;
+        for (String k : keys) {
+            int eq = k.indexOf('=');
+            String key = eq < 0 ? k : k.substring(0, eq);
+            String option = eq < 0 ? "--" + key.replace('_', '-') : k.substring(eq + 1);
+            String word = java.util.regex.Pattern.quote(key);
+            String regex = key.indexOf('_') >= 0 ? "(?<![\\w./-])" + word + "(?![\\w-]|\\.\\w)"
+                    : "(?:^" + word + "(?![\\w-]|\\.\\w)|(?<=\\()" + word + "(?=\\)))";
+            m = m.replaceAll(regex, java.util.regex.Matcher.quoteReplacement(option));
+        }
+        return m;
+    }
+
+    /**
+     * Opens an output directory given by {@code --out}.
+     *
+     * @param dir the directory
+     * @param force whether existing files may be replaced
+     * @param inputs input files, never written over
+     * @return the output set
+     */
+    static org.echotrellis.io.OutputSet outputSet(java.nio.file.Path dir, boolean force,
+            java.util.Collection<java.nio.file.Path> inputs) {
+        return asOptions(() -> org.echotrellis.io.OutputSet.open(dir, force, inputs), "out");
+    }
+
+    /**
+     * The command-line wording of a library input error: a refused overwrite names {@code --force}.
+     *
+     * @param message a library message
+     * @return the message as the command line prints it
+     */
+    static String forCommandLine(String message) {
+        return message == null ? null
+                : message.replace(org.echotrellis.io.AtomicFiles.EXISTS, " exists; use --force to overwrite");
     }
 
     /**

@@ -43,7 +43,8 @@ final class CohortCli {
                     r.rows().size(), r.voxels(), r.seconds(), r.voxelsPerSecond());
             for (CohortFailure f : r.failures()) {
                 err.printf("cohort: failed sub-%s%s at %s: %s%n", f.subject(),
-                        f.session().isEmpty() ? "" : " ses-" + f.session(), f.stage(), f.message());
+                        f.session().isEmpty() ? "" : " ses-" + f.session(), f.stage(),
+                        CliChecks.optionNames(CliChecks.forCommandLine(f.message()), CliChecks.DATASET_KEYS));
             }
             out.flush();
             err.flush();

@@ -138,16 +138,16 @@ final class DatasetOptions {
         }
         Checks.require(refocusDeg == null || refocusSearch == null,
                 "--refocus-deg and --refocus-search-deg exclude each other; give one");
-        RefocusSearch search = refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
-                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : null;
-        Regularisation r = Regularisation.parse(regularisation);
+        RefocusSearch search = CliChecks.asOptions(() -> refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
+                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : null);
+        Regularisation r = CliChecks.asOptions(() -> Regularisation.parse(regularisation));
         if (misfitIncrease != null && r == Regularisation.NONE) {
             throw new InputException("--misfit-increase sets the misfit target of regularisation; it has no effect with "
                     + "--regularisation none");
         }
         List<FractionWindow> ws = new ArrayList<>();
         if (window != null) {
-            ws.add(FractionWindow.parse(window));
+            ws.add(CliChecks.asOptions(() -> FractionWindow.parse(window)));
         }
         double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : Double.NaN;
         return Optional.of(new SpectrumChoices(t1, ws,

@@ -54,7 +54,7 @@ final class DemoCommand implements Callable<Integer> {
         if (parent != null && Files.exists(parent) && !Files.isDirectory(parent)) {
             throw new InputException("--out " + out + ": cannot create the directory (" + parent + " is not a directory)");
         }
-        try (OutputSet set = OutputSet.openOwn(out, force, List.of())) {
+        try (OutputSet set = CliChecks.asOptions(() -> OutputSet.openOwn(out, force, List.of()), "out")) {
             set.plan(OWN_FILES);
             run(set);
         }

@@ -176,6 +176,11 @@ final class DesignCommand implements Callable<Integer> {
     /** Output formats. */
     enum Format { table, json }
 
+    /** Library keys of the design settings, each given by the option of the same name. */
+    private static final String[] KEYS = {"objective", "target", "startup", "knots", "slices", "min_flip_deg",
+        "max_flip_deg", "sar_budget", "b1rms_limit_ut", "tr_ms", "pulse_ms", "excitation_pulse_ms", "max_evaluations",
+        "reference_sar_w_per_kg"};
+
     @Override
     public Integer call() {
         Protocol p = ProtocolReader.read(protocol);
@@ -187,11 +192,13 @@ final class DesignCommand implements Callable<Integer> {
                     + Tables.num(tissue.t1Ms()) + " ms, T2 " + Tables.num(tissue.t2Ms()) + " ms (add tissue: or give --design-tissue)");
         }
         String tissueName = tissue.name() == null || tissue.name().isEmpty() ? "design tissue" : tissue.name();
-        DesignProblem problem = new DesignProblem(tissueName, train.echoes(), train.echoSpacingMs(),
-                train.excitationFlipDeg(), tissue.t1Ms(), tissue.t2Ms(), p.b1Scale(), minFlipDeg, maxFlipDeg);
+        DesignProblem problem = CliChecks.asOptions(() -> new DesignProblem(tissueName, train.echoes(),
+                train.echoSpacingMs(), train.excitationFlipDeg(), tissue.t1Ms(), tissue.t2Ms(), p.b1Scale(), minFlipDeg,
+                maxFlipDeg), KEYS);
         checkTiming(train);
-        ExposureLimits limits = new ExposureLimits(sarBudget,
-                b1rmsLimitUt == null ? Double.POSITIVE_INFINITY : Checks.positive("--b1rms-limit-ut", b1rmsLimitUt, null));
+        ExposureLimits limits = CliChecks.asOptions(() -> new ExposureLimits(sarBudget,
+                b1rmsLimitUt == null ? Double.POSITIVE_INFINITY : Checks.positive("--b1rms-limit-ut", b1rmsLimitUt, null)),
+                KEYS);
         RfExposure rf = rf(p);
         SarReference reference = reference(p, train, rf);
         List<Tissue> compare = compareTissues(tissueName);
@@ -220,16 +227,19 @@ final class DesignCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         DesignReport report;
         if (goal.target != null) {
-            report = DesignJob.prescribed(problem, EchoTarget.parse(goal.target), Startup.parse(startup), rf, limits,
-                    reference, compare, org.echotrellis.design.AcquiredEchoes.forProtocol(p));
+            EchoTarget target = CliChecks.asOptions(() -> EchoTarget.parse(goal.target), KEYS);
+            Startup start = CliChecks.asOptions(() -> Startup.parse(startup), KEYS);
+            report = CliChecks.asOptions(() -> DesignJob.prescribed(problem, target, start, rf, limits,
+                    reference, compare, org.echotrellis.design.AcquiredEchoes.forProtocol(p)), KEYS);
         } else {
-            Objective objective = Objective.parse(goal.objective, problem, DesignCommand::presetTimes);
+            Objective objective = CliChecks.asOptions(() -> Objective.parse(goal.objective, problem,
+                    DesignCommand::presetTimes), KEYS);
             if (!quiet) {
                 err.println("design: optimising " + knots + " spline knots for " + objective.spec() + " ...");
                 err.flush();
             }
-            report = DesignJob.optimised(problem, objective, rf, limits, reference, knots, maxEvaluations, compare,
-                    org.echotrellis.design.AcquiredEchoes.forProtocol(p));
+            report = CliChecks.asOptions(() -> DesignJob.optimised(problem, objective, rf, limits, reference, knots,
+                    maxEvaluations, compare, org.echotrellis.design.AcquiredEchoes.forProtocol(p)), KEYS);
         }
         refuseOverLimits(report);
         PrintWriter o = spec.commandLine().getOut();
@@ -307,7 +317,8 @@ final class DesignCommand implements Callable<Integer> {
         double excMs = excitationPulseMs != null ? excitationPulseMs
                 : acq.excitationPulse().isPresent() ? acq.excitationPulse().get().durationMs() : refMs;
         double tr = trMs != null ? trMs : acq.hasRepetition() ? acq.repetitionMs() : Double.NaN;
-        return new RfExposure(refocus, refMs, exc, excMs, tr, slices);
+        PulseShape e = exc;
+        return CliChecks.asOptions(() -> new RfExposure(refocus, refMs, e, excMs, tr, slices), KEYS);
     }
 
     private SarReference reference(Protocol p, CpmgTrain train, RfExposure rf) {
@@ -324,7 +335,8 @@ final class DesignCommand implements Callable<Integer> {
         }
         RfExposure refRf = rf.withTiming(referenceTrMs == null ? rf.trMs() : referenceTrMs,
                 referenceSlices == null ? slices : referenceSlices);
-        return new SarReference(referenceSar, refRf.powerUt2(ref.excitationFlipDeg(), ref.refocusFlipsDeg()));
+        double power = refRf.powerUt2(ref.excitationFlipDeg(), ref.refocusFlipsDeg());
+        return CliChecks.asOptions(() -> new SarReference(referenceSar, power), KEYS);
     }
 
     private List<Tissue> compareTissues(String designName) {

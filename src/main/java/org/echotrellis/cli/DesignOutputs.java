@@ -35,7 +35,7 @@ final class DesignOutputs {
      * input, or the directory is not writable, before any work is done.
      */
     static OutputSet open(Path dir, boolean force, List<Path> inputs) {
-        OutputSet set = OutputSet.open(dir, force, inputs);
+        OutputSet set = CliChecks.outputSet(dir, force, inputs);
         try {
             set.plan(FILES);
         } catch (RuntimeException e) {

@@ -163,9 +163,11 @@ final class FitCommand implements Callable<Integer> {
                 throw new InputException("--mask and --b1-map apply to NIfTI volumes, not to the decay table " + data);
             }
             double sigma = tableSigma();
-            T2Fit.Factory f = new T2Fit.Factory(options.settings(p).withNoiseSigma(sigma), model, true);
+            FitOptions tableOptions = options;
+            T2Fit.Factory f = new T2Fit.Factory(CliChecks.asOptions(() -> tableOptions.settings(p)).withNoiseSigma(sigma),
+                    model, true);
             new FitTableRun(f, p, tablePlots(), force, List.of(data, protocol)).run(data, format == Format.json, o,
-                    options.t1Source(), CliChecks.provenance(spec, protocol, data), report);
+                    CliChecks.optionNames(options.t1Source(), "t1_ms"), CliChecks.provenance(spec, protocol, data), report);
             return 0;
         }
         int n = threads == null ? Runtime.getRuntime().availableProcessors() : CliChecks.threads(threads);
@@ -173,11 +175,13 @@ final class FitCommand implements Callable<Integer> {
             options = noiseSigma.equals("auto") ? options.withNoise(Double.NaN, true)
                     : options.withNoise(parseSigma(noiseSigma), false);
         }
-        VolumeAnalysis analysis = VolumeAnalysis.fit(p, options);
+        FitOptions fitOptions = options;
+        VolumeAnalysis analysis = CliChecks.asOptions(() -> VolumeAnalysis.fit(p, fitOptions));
         Map<String, Object> info = new LinkedHashMap<>();
         info.put("data", data.toString());
         info.put("protocol", p.name());
         info.putAll(analysis.describe());
+        info.computeIfPresent("t1_source", (k, v) -> CliChecks.optionNames(v.toString(), "t1_ms"));
         info.put("b1_map", b1Map == null ? null : b1Map.toString());
         info.put("b1_map_units", b1MapUnits.name());
         info.put("mask", mask == null ? null : mask.toString());

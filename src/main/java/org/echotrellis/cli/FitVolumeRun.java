@@ -60,7 +60,7 @@ final class FitVolumeRun {
         VolumeJob.checkSeries(grid, data.toString(), analysis.train().echoes());
         Nifti.checkOnGrid(maskFile, grid, "--mask");
         Nifti.checkOnGrid(b1File, grid, "--b1-map");
-        try (OutputSet set = OutputSet.open(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile));
+        try (OutputSet set = CliChecks.outputSet(outDir, force, java.util.Arrays.asList(data, maskFile, b1File, protocolFile));
                 NiftiInput in = Nifti.open(data)) {
             NiftiHeader h = in.header();
             org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
@@ -69,7 +69,7 @@ final class FitVolumeRun {
                     .map(m -> b1Units == FitCommand.B1Units.percent ? m.times(0.01) : m);
             VolumeJob job = CliChecks.volumeJob(in, mask, b1, threads);
             set.plan(plannedFiles(analysis.mapNames()));
-            VolumeMaps maps = analysis.run(job, StderrProgressBar.onTerminal(err, quiet));
+            VolumeMaps maps = CliChecks.asOptions(() -> analysis.run(job, StderrProgressBar.onTerminal(err, quiet)), "noise_sigma");
             info.put("noise_sigma", Double.isNaN(maps.noiseSigma()) ? null : maps.noiseSigma());
             VolumeResult res = maps.result();
             refuseNothingFitted(res, job, b1File);

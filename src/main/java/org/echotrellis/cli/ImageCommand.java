@@ -153,7 +153,7 @@ final class ImageCommand implements Callable<Integer> {
 
     /** Opens the --out set and checks every file name before any work. */
     private OutputSet openSet(boolean builtin) {
-        OutputSet set = OutputSet.open(out, force, java.util.Arrays.asList(input.file, builtin ? null : Path.of(phantom)));
+        OutputSet set = CliChecks.outputSet(out, force, java.util.Arrays.asList(input.file, builtin ? null : Path.of(phantom)));
         try {
             List<String> names = new ArrayList<>(List.of(JSON_FILE));
             for (String c : ImageOutputs.CHARTS) {
@@ -173,14 +173,17 @@ final class ImageCommand implements Callable<Integer> {
         List<Tissue> ts = tissues(p);
         KSpaceOrdering o = ordering(p.echoCount());
         Map<Integer, String> mapping = mapping(ts);
-        LabelImage labelImage = builtin || !figures ? null : LabelImage.read(Path.of(phantom), phantomSlice);
-        ImageReport report = FseImaging.analyse(p, o, ts, noiseSd == null ? Double.NaN : noiseSd);
+        LabelImage labelImage = builtin || !figures ? null
+                : CliChecks.asOptions(() -> LabelImage.read(Path.of(phantom), phantomSlice), "phantom", "phantom_slice");
+        ImageReport report = CliChecks.asOptions(() -> FseImaging.analyse(p, o, ts, noiseSd == null ? Double.NaN : noiseSd),
+                "noise_sd");
         PrintWriter w = spec.commandLine().getOut();
         w.print(format == Format.json ? Json.write(ImageOutputs.json(report)) : ImageOutputs.table(report, p.name()));
         w.flush();
         if (figures) {
             Phantom ph = labelImage == null ? Phantom.builtin(o.lines(), ts.size()) : fromFile(labelImage, mapping, ts);
-            PhantomImages img = PhantomImager.image(ph, report.tissues(), noiseSd == null ? 0 : noiseSd, seed);
+            PhantomImages img = CliChecks.asOptions(() -> PhantomImager.image(ph, report.tissues(), noiseSd == null ? 0 : noiseSd,
+                    seed), "noise_sd");
             String title = p.name() + ": ";
             List<JFreeChart> charts = List.of(ImageOutputs.weightsChart(report, title + "k-space weights"),
                     ImageOutputs.psfChart(report, title + "point-spread function"),
@@ -254,14 +257,14 @@ final class ImageCommand implements Callable<Integer> {
                 throw new InputException("--center-echo " + centerEcho + " applies to --ordering linear only "
                         + "(centric ordering places echo 1 at the centre)");
             }
-            return KSpaceOrdering.centric(phaseLines, echoes);
+            return CliChecks.asOptions(() -> KSpaceOrdering.centric(phaseLines, echoes), "phase_lines");
         }
         if (centerEcho != null && (centerEcho < 1 || centerEcho > echoes)) {
             throw new InputException("--center-echo must be within [1, " + echoes + "] (the echoes per train), got "
                     + centerEcho);
         }
-        return centerEcho == null ? KSpaceOrdering.linear(phaseLines, echoes)
-                : KSpaceOrdering.linear(phaseLines, echoes, centerEcho);
+        return CliChecks.asOptions(() -> centerEcho == null ? KSpaceOrdering.linear(phaseLines, echoes)
+                : KSpaceOrdering.linear(phaseLines, echoes, centerEcho), "phase_lines", "center_echo");
     }
 
     private Map<Integer, String> mapping(List<Tissue> ts) {
@@ -299,8 +302,8 @@ final class ImageCommand implements Callable<Integer> {
                     + (unmapped.size() > 12 ? " …" : "") + " of " + li.source() + " have no --label and give no signal");
             err.flush();
         }
-        return Phantom.fromLabels(li.rows(), li.cols(), li.labels(), mapping,
-                ts.stream().map(Tissue::name).toList(), li.source()).withRows(phaseLines);
+        return CliChecks.asOptions(() -> Phantom.fromLabels(li.rows(), li.cols(), li.labels(), mapping,
+                ts.stream().map(Tissue::name).toList(), li.source()).withRows(phaseLines), "label");
     }
 
     private String phantomCaption(Phantom ph, PhantomImages img) {

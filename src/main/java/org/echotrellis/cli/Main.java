@@ -178,7 +178,7 @@ public final class Main implements java.util.concurrent.Callable<Integer> {
             err.println("echotrellis: " + oneLine(write.getMessage()));
             code = EXIT_WRITE_FAILURE;
         } else if (input != null) {
-            err.println("echotrellis: " + oneLine(input.getMessage()));
+            err.println("echotrellis: " + oneLine(CliChecks.forCommandLine(input.getMessage())));
             code = 2;
         } else {
             err.println("echotrellis: internal error: " + e.getClass().getSimpleName()

@@ -117,7 +117,7 @@ final class PathwaysCommand implements Callable<Integer> {
         TopPathways tp = null;
         if (echo != null) {
             PathwaySearch.Limits lim = new PathwaySearch.Limits(top == null ? 10 : top, minAmplitude, 2_000_000);
-            tp = PathwayAnalysis.topPathways(p, d, echo, lim);
+            tp = CliChecks.asOptions(() -> PathwayAnalysis.topPathways(p, d, echo, lim), "echo");
         }
         PrintWriter o = spec.commandLine().getOut();
         switch (format) {

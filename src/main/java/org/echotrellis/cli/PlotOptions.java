@@ -28,6 +28,9 @@ final class PlotOptions {
             lo = r[0];
             hi = r[1];
         }
-        return new PlotSettings(scale, lo, hi);
+        double s = scale;
+        double l = lo;
+        double h = hi;
+        return CliChecks.asOptions(() -> new PlotSettings(s, l, h), "plot_scale");
     }
 }

@@ -48,7 +48,8 @@ final class ProtocolInput {
             t = t.withT2Ms(CliChecks.positiveOrInf("--t2-ms", t2Ms));
         }
         double scale = b1 == null ? p.b1Scale() : CliChecks.b1("--b1", b1);
-        Protocol q = refocusingFlipDeg == null ? p : p.withConstantRefocusFlipDeg(refocusingFlipDeg);
+        Protocol q = refocusingFlipDeg == null ? p
+                : CliChecks.asOptions(() -> p.withConstantRefocusFlipDeg(refocusingFlipDeg), "refocusing_flip_deg");
         return q.withTissue(t).withB1Scale(scale);
     }
 }

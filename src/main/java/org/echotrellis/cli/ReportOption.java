@@ -57,7 +57,7 @@ final class ReportOption {
         if (report == null) {
             return;
         }
-        Report.checkTarget(report, force);
+        CliChecks.checkAsOptions(() -> Report.checkTarget(report, force), "report");
         this.spec = spec;
         ParseResult parsed = spec.commandLine().getParseResult();
         StringBuilder cl = new StringBuilder("echotrellis");

@@ -150,7 +150,7 @@ final class SpectrumCommand implements Callable<Integer> {
         Checks.require(image || b1Map == null, "--b1-map applies to image input only; DATA " + data + " is a table");
         Checks.require(b1Map == null || refocusDeg == null, "--b1-map and --refocus-deg exclude each other; give one");
         refuseIgnored(image, options);
-        VolumeAnalysis analysis = VolumeAnalysis.spectrum(p, options);
+        VolumeAnalysis analysis = CliChecks.asOptions(() -> VolumeAnalysis.spectrum(p, options));
         BasisCache cache = analysis.basisCache().orElseThrow();
         Map<String, Object> settings = settings(p, analysis);
         if (image) {

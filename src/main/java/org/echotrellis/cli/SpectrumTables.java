@@ -34,7 +34,7 @@ final class SpectrumTables {
                     boolean force, Map<String, Object> settings, PrintWriter stdout, List<Path> inputs) throws Exception {
         DecayTable t = DecayTableReader.read(data);
         checkEchoes(t, p);
-        try (OutputSet set = out == null ? null : OutputSet.open(out, force, inputs)) {
+        try (OutputSet set = out == null ? null : CliChecks.outputSet(out, force, inputs)) {
             if (set != null) {
                 set.plan(List.of("spectra.csv", "spectra.json", "spectrum.png", "spectrum.svg"));
             }

@@ -49,7 +49,7 @@ final class SpectrumVolumes {
         VolumeJob.checkSeries(grid, data.toString(), analysis.train().echoes());
         Nifti.checkOnGrid(mask, grid, "--mask");
         Nifti.checkOnGrid(b1Map, grid, "--b1-map");
-        try (OutputSet set = OutputSet.open(out, force, inputs); NiftiInput in = Nifti.open(data)) {
+        try (OutputSet set = CliChecks.outputSet(out, force, inputs); NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
             Optional<NiftiImage> b1 = b1Map == null ? Optional.empty() : Optional.of(Nifti.read(b1Map));
             VolumeJob job = CliChecks.volumeJob(in, m, b1, threads);

@@ -35,8 +35,14 @@ final class SubjectTask {
         String[] stage = {"read"};
         java.nio.file.Path scratch = null;
         try {
-            scratch = Files.createTempDirectory("echotrellis-cohort-");
             Path outRoot = Storage.path(request.outputDir());
+            Path stats = unit.statsFile(outRoot);
+            if (!request.force() && Storage.exists(stats)) {
+                // an earlier attempt of this task finished the unit before its executor was lost: Spark's
+                // retry takes the published outputs instead of failing on them
+                return new UnitOutcome(unit.subject(), unit.session(), readStats(stats), null, 0, seconds(t0));
+            }
+            scratch = Files.createTempDirectory("echotrellis-cohort-");
             java.nio.file.Path root = UnitAnalyses.localDataset(request, unit, scratch.resolve("in"));
             java.nio.file.Path out = scratch.resolve("out");
             java.nio.file.Path unitDir = Files.createDirectories(out.resolve(unit.relativeDir()));
@@ -77,7 +83,7 @@ final class SubjectTask {
                 rows.add(CohortRow.parse(t.get(i)));
             } catch (IllegalArgumentException e) {
                 throw new UncheckedIOException(new IOException(stats + " line " + (i + 1) + ": " + e.getMessage()
-                        + " (remove the subject's directory, or rerun with --force)"));
+                        + " (remove the subject's directory, or redo it with force)"));
             }
         }
         return rows;

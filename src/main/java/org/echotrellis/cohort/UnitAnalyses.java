@@ -97,7 +97,7 @@ final class UnitAnalyses {
         for (MeseCollection c : cs) {
             stage[0] = "read";
             BidsProtocol.Resolved p = BidsProtocol.resolve(c, Optional.ofNullable(request.protocol()),
-                    OptionalDouble.empty(), "--protocol");
+                    OptionalDouble.empty(), "refocusing flip");
             stage[0] = "analysis";
             List<Path> files = BidsDerivatives.run(root, c, p.protocol(), p.acquisition(), settings, out,
                     ProgressReporter.NONE);

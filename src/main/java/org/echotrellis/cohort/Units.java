@@ -61,7 +61,7 @@ final class Units {
         }
         for (String p : participants) {
             if (!found.contains(p)) {
-                throw new InputException("--participant-label " + p + ": no directory sub-" + p + " in " + bidsDir
+                throw new InputException("participant label " + p + ": no directory sub-" + p + " in " + bidsDir
                         + " (labels are given without 'sub-'; found " + found + ")");
             }
         }

@@ -192,7 +192,7 @@ public final class DesignJob {
     }
 
     private static void checkLimits(ExposureLimits limits, RfExposure rf, SarReference reference) {
-        Checks.require(!limits.hasB1rmsLimit() || rf.hasTr(), "--b1rms-limit-ut needs --tr-ms (B1+rms is averaged over TR)");
-        Checks.require(reference == null || rf.hasTr(), "--reference-sar-w-per-kg needs --tr-ms");
+        Checks.require(!limits.hasB1rmsLimit() || rf.hasTr(), "b1rms_limit_ut needs tr_ms (B1+rms is averaged over TR)");
+        Checks.require(reference == null || rf.hasTr(), "reference_sar_w_per_kg needs tr_ms");
     }
 }

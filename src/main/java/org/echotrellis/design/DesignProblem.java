@@ -42,10 +42,10 @@ public record DesignProblem(String tissueName, int echoes, double echoSpacingMs,
         Checks.positiveOrInfinite("t1_ms", t1Ms, null);
         Checks.positiveOrInfinite("t2_ms", t2Ms, null);
         Checks.positive("b1_scale", b1Scale, null);
-        Checks.inRange("--min-flip-deg", minFlipDeg, 0, 180, null);
-        Checks.inRange("--max-flip-deg", maxFlipDeg, 0, 180, null);
-        Checks.require(minFlipDeg <= maxFlipDeg, "--min-flip-deg (" + minFlipDeg
-                + ") must not exceed --max-flip-deg (" + maxFlipDeg + ")");
+        Checks.inRange("min_flip_deg", minFlipDeg, 0, 180, null);
+        Checks.inRange("max_flip_deg", maxFlipDeg, 0, 180, null);
+        Checks.require(minFlipDeg <= maxFlipDeg, "min_flip_deg (" + minFlipDeg
+                + ") must not exceed max_flip_deg (" + maxFlipDeg + ")");
         tissueName = tissueName == null ? "design tissue" : tissueName;
     }
 

@@ -105,7 +105,7 @@ public sealed interface EchoTarget {
          * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
          */
         public Decay {
-            Checks.positiveOrInfinite("--target decay pseudo-T2 (ms)", pseudoT2Ms, null);
+            Checks.positiveOrInfinite("target decay pseudo-T2 (ms)", pseudoT2Ms, null);
             if (!Double.isNaN(start)) {
                 checkLevel("decay start", start);
             }
@@ -155,7 +155,7 @@ public sealed interface EchoTarget {
 
         @Override
         public double[] amplitudes(DesignProblem problem) {
-            Checks.require(values.length == problem.echoes(), "--target list " + source + " has "
+            Checks.require(values.length == problem.echoes(), "target list " + source + " has "
                     + values.length + " values but the train has " + problem.echoes() + " echoes");
             return values.clone();
         }
@@ -180,32 +180,32 @@ public sealed interface EchoTarget {
         try {
             switch (p[0]) {
                 case "constant":
-                    Checks.require(p.length == 2, "--target " + spec + ": " + allowed);
+                    Checks.require(p.length == 2, "target " + spec + ": " + allowed);
                     return new Constant(Double.parseDouble(p[1]));
                 case "ramp":
-                    Checks.require(p.length == 3, "--target " + spec + ": " + allowed);
+                    Checks.require(p.length == 3, "target " + spec + ": " + allowed);
                     return new Ramp(Double.parseDouble(p[1]), Double.parseDouble(p[2]));
                 case "decay":
-                    Checks.require(p.length == 2 || p.length == 3, "--target " + spec + ": " + allowed);
+                    Checks.require(p.length == 2 || p.length == 3, "target " + spec + ": " + allowed);
                     return new Decay(Double.parseDouble(p[1]), p.length == 3 ? Double.parseDouble(p[2]) : Double.NaN);
                 case "list":
-                    Checks.require(p.length >= 2 && !s.substring(5).isBlank(), "--target " + spec + ": " + allowed);
+                    Checks.require(p.length >= 2 && !s.substring(5).isBlank(), "target " + spec + ": " + allowed);
                     return readList(Path.of(s.substring(5)));
                 default:
-                    throw new InputException("--target " + spec + " is not understood; " + allowed);
+                    throw new InputException("target " + spec + " is not understood; " + allowed);
             }
         } catch (NumberFormatException e) {
-            throw new InputException("--target " + spec + " has a value that is not a number; " + allowed);
+            throw new InputException("target " + spec + " has a value that is not a number; " + allowed);
         }
     }
 
     private static Listed readList(Path file) {
         List<String> lines;
-        InputFiles.requireRegular(file, "--target list:" + file);
+        InputFiles.requireRegular(file, "target list:" + file);
         try {
             lines = Files.readAllLines(file, StandardCharsets.UTF_8);
         } catch (IOException e) {
-            throw InputFiles.readFailure("--target list:" + file, e);
+            throw InputFiles.readFailure("target list:" + file, e);
         }
         List<Double> values = new ArrayList<>();
         for (int i = 0; i < lines.size(); i++) {
@@ -225,7 +225,7 @@ public sealed interface EchoTarget {
                 }
             }
         }
-        Checks.require(!values.isEmpty(), "--target list: " + file + " holds no values");
+        Checks.require(!values.isEmpty(), "target list: " + file + " holds no values");
         double[] v = new double[values.size()];
         for (int i = 0; i < v.length; i++) {
             v[i] = values.get(i);
@@ -234,6 +234,6 @@ public sealed interface EchoTarget {
     }
 
     private static void checkLevel(String what, double level) {
-        Checks.inRange(what + " (echo amplitude relative to M0)", level, 0, 1, "--target");
+        Checks.inRange(what + " (echo amplitude relative to M0)", level, 0, 1, "target");
     }
 }

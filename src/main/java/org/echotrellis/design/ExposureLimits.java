@@ -18,9 +18,9 @@ public record ExposureLimits(double sarBudget, double b1rmsLimitUt) {
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public ExposureLimits {
-        Checks.require(sarBudget > 0 && sarBudget <= 1, "--sar-budget must be within (0, 1] "
+        Checks.require(sarBudget > 0 && sarBudget <= 1, "sar_budget must be within (0, 1] "
                 + "(a fraction of the SAR of the all-180° train), got " + sarBudget);
-        Checks.positiveOrInfinite("--b1rms-limit-ut", b1rmsLimitUt, null);
+        Checks.positiveOrInfinite("b1rms_limit_ut", b1rmsLimitUt, null);
     }
 
     /** @return true when a B1+rms limit is set */

@@ -19,7 +19,7 @@ final class FlipSpline {
      * @param echoes number of echoes the spline spans, from echo 1
      */
     public FlipSpline(int knots, int echoes) {
-        Checks.inRange("--knots", knots, 2, Math.max(2, Math.min(32, echoes)), null);
+        Checks.inRange("knots", knots, 2, Math.max(2, Math.min(32, echoes)), null);
         this.echoes = echoes;
         positions = new double[knots];
         for (int j = 0; j < knots; j++) {

@@ -47,7 +47,7 @@ public sealed interface Objective {
          * @throws org.echotrellis.InputException if the index is outside 1 to {@link DesignProblem#MAX_ECHOES}
          */
         public SignalAt {
-            Checks.inRange("--objective signal echo", echo, 1, DesignProblem.MAX_ECHOES, null);
+            Checks.inRange("objective signal echo", echo, 1, DesignProblem.MAX_ECHOES, null);
         }
 
         @Override
@@ -76,8 +76,8 @@ public sealed interface Objective {
          * @throws org.echotrellis.InputException if the window is empty or reaches beyond {@link DesignProblem#MAX_ECHOES}
          */
         public MinOver {
-            Checks.inRange("--objective min FROM", from, 1, DesignProblem.MAX_ECHOES, null);
-            Checks.inRange("--objective min TO", to, from, DesignProblem.MAX_ECHOES, null);
+            Checks.inRange("objective min FROM", from, 1, DesignProblem.MAX_ECHOES, null);
+            Checks.inRange("objective min TO", to, from, DesignProblem.MAX_ECHOES, null);
         }
 
         @Override
@@ -117,11 +117,11 @@ public sealed interface Objective {
          * @throws org.echotrellis.InputException if the index is outside 1 to {@link DesignProblem#MAX_ECHOES} or a relaxation time is not &gt; 0
          */
         public Contrast {
-            Checks.inRange("--objective contrast echo", echo, 1, DesignProblem.MAX_ECHOES, null);
-            Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "--objective");
-            Checks.positiveOrInfinite("t2_ms of " + nameA, t2A, "--objective");
-            Checks.positiveOrInfinite("t1_ms of " + nameB, t1B, "--objective");
-            Checks.positiveOrInfinite("t2_ms of " + nameB, t2B, "--objective");
+            Checks.inRange("objective contrast echo", echo, 1, DesignProblem.MAX_ECHOES, null);
+            Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "objective");
+            Checks.positiveOrInfinite("t2_ms of " + nameA, t2A, "objective");
+            Checks.positiveOrInfinite("t1_ms of " + nameB, t1B, "objective");
+            Checks.positiveOrInfinite("t2_ms of " + nameB, t2B, "objective");
         }
 
         @Override
@@ -166,14 +166,14 @@ public sealed interface Objective {
          * @throws org.echotrellis.InputException if a value is outside its range or {@code lines} is not a multiple of {@code echoes}
          */
         public PsfWidth {
-            Checks.inRange("--objective psf ECHO", echo, 1, echoes, null);
-            Checks.inRange("--objective psf LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
-            Checks.require(lines % echoes == 0, "--objective psf LINES " + lines + " must be a multiple of the "
+            Checks.inRange("objective psf ECHO", echo, 1, echoes, null);
+            Checks.inRange("objective psf LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
+            Checks.require(lines % echoes == 0, "objective psf LINES " + lines + " must be a multiple of the "
                     + echoes + " echoes of the train");
-            Checks.positiveOrInfinite("t1_ms of " + name, t1, "--objective");
-            Checks.positiveOrInfinite("t2_ms of " + name, t2, "--objective");
-            Checks.inRange("--objective psf MIN_SIGNAL", minSignal, 0, 1, null);
-            Checks.inRange("--objective psf MAX_SIDELOBE", maxSidelobe, 0, 1, null);
+            Checks.positiveOrInfinite("t1_ms of " + name, t1, "objective");
+            Checks.positiveOrInfinite("t2_ms of " + name, t2, "objective");
+            Checks.inRange("objective psf MIN_SIGNAL", minSignal, 0, 1, null);
+            Checks.inRange("objective psf MAX_SIDELOBE", maxSidelobe, 0, 1, null);
         }
 
         @Override
@@ -220,15 +220,15 @@ public sealed interface Objective {
          * @throws org.echotrellis.InputException if a value is outside its range or {@code lines} is not a multiple of {@code echoes}
          */
         public ContrastAtWidth {
-            Checks.inRange("--objective cnr ECHO", echo, 1, echoes, null);
-            Checks.inRange("--objective cnr LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
-            Checks.require(lines % echoes == 0, "--objective cnr LINES " + lines + " must be a multiple of the "
+            Checks.inRange("objective cnr ECHO", echo, 1, echoes, null);
+            Checks.inRange("objective cnr LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
+            Checks.require(lines % echoes == 0, "objective cnr LINES " + lines + " must be a multiple of the "
                     + echoes + " echoes of the train");
-            Checks.inRange("--objective cnr MAX_FWHM_PX", maxFwhmPx, 1, lines, null);
-            Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "--objective");
-            Checks.positiveOrInfinite("t2_ms of " + nameA, t2A, "--objective");
-            Checks.positiveOrInfinite("t1_ms of " + nameB, t1B, "--objective");
-            Checks.positiveOrInfinite("t2_ms of " + nameB, t2B, "--objective");
+            Checks.inRange("objective cnr MAX_FWHM_PX", maxFwhmPx, 1, lines, null);
+            Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "objective");
+            Checks.positiveOrInfinite("t2_ms of " + nameA, t2A, "objective");
+            Checks.positiveOrInfinite("t1_ms of " + nameB, t1B, "objective");
+            Checks.positiveOrInfinite("t2_ms of " + nameB, t2B, "objective");
         }
 
         @Override
@@ -260,22 +260,22 @@ public sealed interface Objective {
         try {
             switch (p[0]) {
                 case "signal":
-                    Checks.require(p.length == 2, "--objective " + spec + ": " + allowed);
+                    Checks.require(p.length == 2, "objective " + spec + ": " + allowed);
                     o = new SignalAt(Integer.parseInt(p[1]));
                     break;
                 case "min":
-                    Checks.require(p.length == 3, "--objective " + spec + ": " + allowed);
+                    Checks.require(p.length == 3, "objective " + spec + ": " + allowed);
                     o = new MinOver(Integer.parseInt(p[1]), Integer.parseInt(p[2]));
                     break;
                 case "contrast":
-                    Checks.require(p.length == 3 || p.length == 4, "--objective " + spec + ": " + allowed);
+                    Checks.require(p.length == 3 || p.length == 4, "objective " + spec + ": " + allowed);
                     double[] a = tissues.apply(p[2]);
                     String nameB = p.length == 4 ? p[3] : design.tissueName();
                     double[] b = p.length == 4 ? tissues.apply(p[3]) : new double[] {design.t1Ms(), design.t2Ms()};
                     o = new Contrast(Integer.parseInt(p[1]), p[2], a[0], a[1], nameB, b[0], b[1]);
                     break;
                 case "psf": {
-                    Checks.require(p.length >= 3 && p.length <= 6, "--objective " + spec + ": " + allowed);
+                    Checks.require(p.length >= 3 && p.length <= 6, "objective " + spec + ": " + allowed);
                     String name = p.length >= 4 ? p[3] : design.tissueName();
                     double[] t = p.length >= 4 ? tissues.apply(p[3]) : new double[] {design.t1Ms(), design.t2Ms()};
                     o = new PsfWidth(Integer.parseInt(p[1]), Integer.parseInt(p[2]), design.echoes(), name, t[0], t[1],
@@ -284,7 +284,7 @@ public sealed interface Objective {
                     break;
                 }
                 case "cnr": {
-                    Checks.require(p.length == 5 || p.length == 6, "--objective " + spec + ": " + allowed);
+                    Checks.require(p.length == 5 || p.length == 6, "objective " + spec + ": " + allowed);
                     double[] ta = tissues.apply(p[4]);
                     String second = p.length == 6 ? p[5] : design.tissueName();
                     double[] tb = p.length == 6 ? tissues.apply(p[5]) : new double[] {design.t1Ms(), design.t2Ms()};
@@ -293,13 +293,13 @@ public sealed interface Objective {
                     break;
                 }
                 default:
-                    throw new InputException("--objective " + spec + " is not understood; " + allowed);
+                    throw new InputException("objective " + spec + " is not understood; " + allowed);
             }
         } catch (NumberFormatException e) {
-            throw new InputException("--objective " + spec + ": echo indices and line counts must be integers "
+            throw new InputException("objective " + spec + ": echo indices and line counts must be integers "
                     + "(MAX_FWHM_PX a number); " + allowed);
         }
-        Checks.require(o.lastEcho() <= design.echoes(), "--objective " + spec + " refers to echo "
+        Checks.require(o.lastEcho() <= design.echoes(), "objective " + spec + " refers to echo "
                 + o.lastEcho() + " but the train has " + design.echoes() + " echoes");
         return o;
     }

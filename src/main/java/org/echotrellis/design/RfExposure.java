@@ -47,12 +47,12 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public RfExposure {
-        Checks.inRange("--pulse-ms", refocusMs, 1e-3, 100, null);
-        Checks.inRange("--excitation-pulse-ms", excitationMs, 1e-3, 100, null);
+        Checks.inRange("pulse_ms", refocusMs, 1e-3, 100, null);
+        Checks.inRange("excitation_pulse_ms", excitationMs, 1e-3, 100, null);
         if (!Double.isNaN(trMs)) {
-            Checks.positive("--tr-ms", trMs, null);
+            Checks.positive("tr_ms", trMs, null);
         }
-        Checks.inRange("--slices", slices, 1, 10_000, null);
+        Checks.inRange("slices", slices, 1, 10_000, null);
     }
 
     /**

@@ -20,7 +20,7 @@ public record SarReference(double sarWPerKg, double powerUt2) {
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public SarReference {
-        Checks.positive("--reference-sar-w-per-kg", sarWPerKg, null);
+        Checks.positive("reference_sar_w_per_kg", sarWPerKg, null);
         Checks.positive("reference RF power", powerUt2, null);
     }
 

@@ -35,7 +35,7 @@ public final class ScheduleFile {
         }
         sb.append(String.format(Locale.ROOT, ", refocusing pulse %s, excitation flip %s°, B1 scale %s: %s.%n",
                 x.pulse(), num(p.excitationFlipDeg()), num(p.b1Scale()),
-                x.withinLimits() ? "limits met" : "LIMITS EXCEEDED (written on request with --keep-over-limits)"));
+                x.withinLimits() ? "limits met" : "LIMITS EXCEEDED (written on request)"));
         sb.append("# ").append(IecLimits.CAUTION).append('\n');
         sb.append("name: ").append(quote(name)).append('\n');
         sb.append("description: ").append(quote(description)).append('\n');

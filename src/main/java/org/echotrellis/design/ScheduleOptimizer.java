@@ -47,20 +47,20 @@ final class ScheduleOptimizer {
      */
     public OptimizedSchedule optimize(DesignProblem problem, Objective objective, ExposureLimits limits,
                                       RfExposure rf, int knots, int maxEvaluations) {
-        Checks.inRange("--max-evaluations", maxEvaluations, 50, 1_000_000, null);
+        Checks.inRange("max_evaluations", maxEvaluations, 50, 1_000_000, null);
         Checks.require(objective.lastEcho() <= problem.echoes(), "the objective refers to echo "
                 + objective.lastEcho() + " but the train has " + problem.echoes() + " echoes");
-        Checks.require(!limits.hasB1rmsLimit() || rf.hasTr(), "--b1rms-limit-ut needs --tr-ms");
+        Checks.require(!limits.hasB1rmsLimit() || rf.hasTr(), "b1rms_limit_ut needs tr_ms");
         int n = problem.echoes();
         double lo = problem.minFlipDeg();
         double hi = problem.maxFlipDeg();
         double[] work = new double[n];
         java.util.Arrays.fill(work, lo);
         if (!limits.allows(rf, problem.excitationFlipDeg(), work)) {
-            throw new InputException("the limits cannot be met even with every flip at --min-flip-deg " + lo
-                    + ": relative SAR " + fmt(RfExposure.relativeSar(work)) + " vs --sar-budget " + limits.sarBudget()
+            throw new InputException("the limits cannot be met even with every flip at min_flip_deg " + lo
+                    + ": relative SAR " + fmt(RfExposure.relativeSar(work)) + " vs sar_budget " + limits.sarBudget()
                     + (limits.hasB1rmsLimit() ? ", B1+rms " + fmt(rf.b1rmsUt(problem.excitationFlipDeg(), work))
-                    + " µT vs --b1rms-limit-ut " + limits.b1rmsLimitUt() : ""));
+                    + " µT vs b1rms_limit_ut " + limits.b1rmsLimitUt() : ""));
         }
         evaluations = 0;
         double constFlip = bestConstant(problem, objective, limits, rf, work);

@@ -65,7 +65,7 @@ public sealed interface Startup {
          * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
          */
         public Ramp {
-            Checks.inRange("--startup ramp length", length, 1, 64, null);
+            Checks.inRange("startup ramp length", length, 1, 64, null);
         }
 
         @Override
@@ -97,9 +97,9 @@ public sealed interface Startup {
             try {
                 return new Ramp(Integer.parseInt(s.substring(5)));
             } catch (NumberFormatException e) {
-                throw new InputException("--startup " + spec + ": N must be an integer; allowed: none, alsop, ramp:N");
+                throw new InputException("startup " + spec + ": N must be an integer; allowed: none, alsop, ramp:N");
             }
         }
-        throw new InputException("--startup " + spec + " is not understood; allowed: none, alsop, ramp:N");
+        throw new InputException("startup " + spec + " is not understood; allowed: none, alsop, ramp:N");
     }
 }

@@ -41,15 +41,15 @@ public record FitSettings(Protocol protocol, double t1Ms, double t2MinMs, double
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public FitSettings {
-        Checks.positiveOrInfinite("--t1-ms", t1Ms, null);
-        Checks.positive("--t2-min-ms", t2MinMs, null);
-        Checks.positive("--t2-max-ms", t2MaxMs, null);
-        Checks.require(t2MaxMs > t2MinMs, "--t2-max-ms must be > --t2-min-ms, got " + t2MaxMs + " <= " + t2MinMs);
-        Checks.positive("--b1-min", b1Min, null);
-        Checks.positive("--b1-max", b1Max, null);
-        Checks.require(b1Max > b1Min, "--b1-max must be > --b1-min, got " + b1Max + " <= " + b1Min);
+        Checks.positiveOrInfinite("t1_ms", t1Ms, null);
+        Checks.positive("t2_min_ms", t2MinMs, null);
+        Checks.positive("t2_max_ms", t2MaxMs, null);
+        Checks.require(t2MaxMs > t2MinMs, "t2_max_ms must be > t2_min_ms, got " + t2MaxMs + " <= " + t2MinMs);
+        Checks.positive("b1_min", b1Min, null);
+        Checks.positive("b1_max", b1Max, null);
+        Checks.require(b1Max > b1Min, "b1_max must be > b1_min, got " + b1Max + " <= " + b1Min);
         Checks.require(Double.isNaN(noiseSigma) || noiseSigma > 0 && Double.isFinite(noiseSigma),
-                "--noise-sigma must be a finite number > 0, got " + noiseSigma);
+                "noise_sigma must be a finite number > 0, got " + noiseSigma);
         Checks.require(protocol.cpmg().isPresent(),
                 "the protocol's refocusing phases are not CPMG (excitation phase ± 90°); fit needs a CPMG train");
     }

@@ -31,7 +31,7 @@ public final class FseImaging {
                     + " echoes but the protocol has " + protocol.echoCount());
         }
         if (!Double.isNaN(noiseSd)) {
-            Checks.positive("--noise-sd", noiseSd, null);
+            Checks.positive("noise_sd", noiseSd, null);
         }
         int[] echoOf = ordering.echoOfLine();
         int centre = echoOf[ordering.centreLine()];

@@ -45,21 +45,21 @@ public record KSpaceOrdering(int lines, int echoes, Kind kind, int centerEcho) {
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public KSpaceOrdering {
-        Checks.inRange("--phase-lines", lines, 1, MAX_LINES, null);
+        Checks.inRange("phase_lines", lines, 1, MAX_LINES, null);
         Checks.inRange("echoes per train", echoes, 1, MAX_LINES, null);
         if (lines % echoes != 0) {
-            throw new InputException("--phase-lines " + lines + " must be a multiple of the " + echoes
+            throw new InputException("phase_lines " + lines + " must be a multiple of the " + echoes
                     + " echoes per train (shots = lines / echoes)");
         }
         if (kind == null) {
             throw new InputException("ordering must be linear or centric");
         }
         if (kind == Kind.CENTRIC && centerEcho != 0) {
-            throw new InputException("--center-echo " + centerEcho + " applies to --ordering linear only "
+            throw new InputException("center_echo " + centerEcho + " applies to ordering linear only "
                     + "(centric ordering places echo 1 at the centre)");
         }
         if (centerEcho != 0) {
-            Checks.inRange("--center-echo", centerEcho, 1, echoes, null);
+            Checks.inRange("center_echo", centerEcho, 1, echoes, null);
         }
     }
 
@@ -81,7 +81,7 @@ public record KSpaceOrdering(int lines, int echoes, Kind kind, int centerEcho) {
      * @throws org.echotrellis.InputException if L is out of range or not a multiple of E, or the centre echo is outside 1 to E
      */
     public static KSpaceOrdering linear(int lines, int echoes, int centerEcho) {
-        Checks.inRange("--center-echo", centerEcho, 1, Math.max(1, echoes), null);
+        Checks.inRange("center_echo", centerEcho, 1, Math.max(1, echoes), null);
         return new KSpaceOrdering(lines, echoes, Kind.LINEAR, centerEcho);
     }
 

@@ -97,7 +97,7 @@ public record Phantom(int rows, int cols, int[] region, String description) {
         for (Map.Entry<Integer, String> e : mapping.entrySet()) {
             int t = tissueNames.indexOf(e.getValue());
             if (t < 0) {
-                throw new InputException("--label " + e.getKey() + "=" + e.getValue() + ": no tissue of that name; "
+                throw new InputException("label " + e.getKey() + "=" + e.getValue() + ": no tissue of that name; "
                         + "the tissues of this run are " + String.join(", ", tissueNames));
             }
             index.put(e.getKey(), t);

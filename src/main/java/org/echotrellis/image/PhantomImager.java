@@ -25,7 +25,7 @@ public final class PhantomImager {
      * @return the ideal and simulated images
      */
     public static PhantomImages image(Phantom phantom, List<TissueImage> tissues, double noiseSd, long seed) {
-        Checks.require(noiseSd >= 0 && Double.isFinite(noiseSd), "--noise-sd must be >= 0, got " + noiseSd);
+        Checks.require(noiseSd >= 0 && Double.isFinite(noiseSd), "noise_sd must be >= 0, got " + noiseSd);
         int rows = phantom.rows();
         int cols = phantom.cols();
         int[] region = phantom.region();

@@ -29,6 +29,9 @@ import org.echotrellis.InputException;
  * next write of the same file.
  */
 public final class AtomicFiles {
+    /** Ends the message refusing an existing file when overwriting was not asked for (after the path). */
+    public static final String EXISTS = " exists; overwriting needs force";
+
     private static final String TMP_MARK = ".echotrellis-";
     private static final Set<Path> TEMPORARIES = ConcurrentHashMap.newKeySet();
 
@@ -83,7 +86,7 @@ public final class AtomicFiles {
         if (Files.exists(target, LinkOption.NOFOLLOW_LINKS)) {
             refuseSpecial(target, OutputSet.realPaths(inputs));
             if (!force) {
-                throw new InputException(target + " exists; use --force to overwrite");
+                throw new InputException(target + EXISTS);
             }
         }
     }

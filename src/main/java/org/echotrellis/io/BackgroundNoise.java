@@ -20,7 +20,7 @@ public final class BackgroundNoise {
      */
     public static double sigma(VolumeJob job) {
         if (job.mask().isEmpty()) {
-            throw new InputException("--noise-sigma auto needs --mask (the noise is estimated outside the mask)");
+            throw new InputException("noise_sigma auto needs a mask (the noise is estimated outside it)");
         }
         NiftiHeader h = job.data().header();
         int slice = h.size(1) * h.size(2);
@@ -44,7 +44,7 @@ public final class BackgroundNoise {
             }
         }
         if (n < 32) {
-            throw new InputException("--noise-sigma auto: only " + n + " finite values outside the mask; give --noise-sigma S");
+            throw new InputException("noise_sigma auto: only " + n + " finite values outside the mask; give noise_sigma as a number");
         }
         return Math.sqrt(sum / n / 2.0);
     }

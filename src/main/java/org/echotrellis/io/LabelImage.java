@@ -51,18 +51,18 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
     public static LabelImage read(Path file, Integer slice) {
         String n = file.getFileName() == null ? "" : file.getFileName().toString().toLowerCase(Locale.ROOT);
         if (!Files.isRegularFile(file)) {
-            throw new InputException("--phantom " + file + ": no such file (give builtin, a .png or a .nii/.nii.gz label image)");
+            throw new InputException("phantom " + file + ": no such file (give builtin, a .png or a .nii/.nii.gz label image)");
         }
         if (n.endsWith(".png")) {
             if (slice != null) {
-                throw new InputException("--phantom-slice applies to NIfTI label images, not to the PNG " + file);
+                throw new InputException("phantom_slice applies to NIfTI label images, not to the PNG " + file);
             }
             return png(file);
         }
         if (n.endsWith(".nii") || n.endsWith(".nii.gz")) {
             return nifti(file, slice);
         }
-        throw new InputException("--phantom " + file + ": the label image must end in .png, .nii or .nii.gz");
+        throw new InputException("phantom " + file + ": the label image must end in .png, .nii or .nii.gz");
     }
 
     private static LabelImage png(Path file) {
@@ -70,10 +70,10 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
         try {
             img = ImageIO.read(file.toFile());
         } catch (IOException e) {
-            throw new InputException("--phantom " + file + ": cannot read the PNG: " + e.getMessage(), e);
+            throw new InputException("phantom " + file + ": cannot read the PNG: " + e.getMessage(), e);
         }
         if (img == null) {
-            throw new InputException("--phantom " + file + ": not a readable PNG image");
+            throw new InputException("phantom " + file + ": not a readable PNG image");
         }
         int w = img.getWidth();
         int h = img.getHeight();
@@ -93,7 +93,7 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
                 int g = (rgb >> 8) & 0xff;
                 int b = rgb & 0xff;
                 if (r != g || g != b) {
-                    throw new InputException("--phantom " + file + ": pixel (" + x + ", " + py + ") has colour (" + r + ", "
+                    throw new InputException("phantom " + file + ": pixel (" + x + ", " + py + ") has colour (" + r + ", "
                             + g + ", " + b + "); a label image is grey, label = grey value 0-255");
                 }
                 labels[(h - 1 - py) * w + x] = r;
@@ -111,7 +111,7 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
         checkSize(file.toString(), nx, ny);
         int z = slice == null ? nz / 2 : slice;
         if (z < 0 || z >= nz) {
-            throw new InputException("--phantom-slice " + z + ": " + file + " has slices 0.." + (nz - 1));
+            throw new InputException("phantom_slice " + z + ": " + file + " has slices 0.." + (nz - 1));
         }
         int[] labels = new int[nx * ny];
         long base = (long) z * nx * ny;
@@ -119,7 +119,7 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
             double v = img.get((int) (base + i));
             long r = Math.round(v);
             if (!(Math.abs(v - r) <= 1e-6) || Math.abs(r) > Integer.MAX_VALUE) {
-                throw new InputException("--phantom " + file + ": voxel (" + i % nx + ", " + i / nx + ", " + z
+                throw new InputException("phantom " + file + ": voxel (" + i % nx + ", " + i / nx + ", " + z
                         + ") has value " + v + "; labels must be whole numbers");
             }
             labels[i] = (int) r;
@@ -129,7 +129,7 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
 
     private static void checkSize(String file, int w, int h) {
         if (w < 1 || h < 1 || w > MAX_SIDE || h > MAX_SIDE) {
-            throw new InputException("--phantom " + file + ": " + w + " x " + h + " pixels; allowed 1 to " + MAX_SIDE
+            throw new InputException("phantom " + file + ": " + w + " x " + h + " pixels; allowed 1 to " + MAX_SIDE
                     + " per side");
         }
     }

@@ -83,7 +83,7 @@ public final class OutputSet implements AutoCloseable {
         this.replaceOwn = replaceOwn;
         this.inputs = realPaths(inputs);
         if (Files.exists(this.dir) && !Files.isDirectory(this.dir)) {
-            throw new InputException("--out " + dir + " exists and is not a directory");
+            throw new InputException("out " + dir + " exists and is not a directory");
         }
         try {
             Files.createDirectories(this.dir);
@@ -212,7 +212,7 @@ public final class OutputSet implements AutoCloseable {
             AtomicFiles.refuseSpecial(t, inputs);
             boolean own = replaceOwn && previous.contains(t.getFileName().toString());
             if (!force && !own) {
-                throw new InputException(target + " exists; use --force to overwrite");
+                throw new InputException(target + AtomicFiles.EXISTS);
             }
         }
     }

@@ -62,10 +62,10 @@ public final class PathwayAnalysis {
      */
     public static TopPathways topPathways(Protocol p, ClassDecomposition classes, int echo,
                                           PathwaySearch.Limits limits) {
-        requireIdeal(p, "--echo (the largest pathways)");
+        requireIdeal(p, "the largest pathways follow");
         Schedule s = schedule(p.events());
         Checks.require(s.echoCount() > 0, "the protocol has no echoes (" + p.source() + ")");
-        Checks.inRange("--echo", echo, 1, s.echoCount(), null);
+        Checks.inRange("echo", echo, 1, s.echoCount(), null);
         Checks.require(classes.echoCount() == s.echoCount(), "class decomposition of another protocol");
         return new PathwaySearch().find(s, echo - 1, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale(), limits,
                 classes.echoRe(echo - 1), classes.echoIm(echo - 1));
@@ -73,7 +73,7 @@ public final class PathwayAnalysis {
 
     private static void requireIdeal(Protocol p, String what) {
         if (!p.isIdealAcquisition()) {
-            throw new org.echotrellis.InputException(what + " follows one isochromat through ideal pulses; "
+            throw new org.echotrellis.InputException(what + " one isochromat through ideal pulses; "
                     + p.source() + " describes a slice-selective, steady-state or diffusing acquisition (summed over "
                     + "positions): use the class decomposition, or a copy of the protocol without slice, repetition_ms "
                     + "and crusher");
@@ -88,7 +88,7 @@ public final class PathwayAnalysis {
      * @return the phase-graph data
      */
     public static PhaseGraph phaseGraph(Protocol p, double threshold, int maxOrder, double untilMs) {
-        requireIdeal(p, "--diagram (the phase graph)");
+        requireIdeal(p, "the phase graph follows");
         return PhaseGraphTracer.trace(schedule(p.events()), p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale(),
                 threshold, maxOrder, untilMs);
     }

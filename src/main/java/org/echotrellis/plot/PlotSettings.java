@@ -30,7 +30,7 @@ public record PlotSettings(double scale, double displayLo, double displayHi) {
      */
     public PlotSettings {
         if (!(scale >= 0.25 && scale <= 8)) {
-            throw new InputException("--plot-scale must be within [0.25, 8], got " + scale);
+            throw new InputException("plot_scale must be within [0.25, 8], got " + scale);
         }
     }
 

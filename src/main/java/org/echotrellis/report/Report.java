@@ -137,7 +137,7 @@ public final class Report {
         Path name = out.getFileName();
         String n = name == null ? "" : name.toString().toLowerCase(Locale.ROOT);
         if (!n.endsWith(".html") && !n.endsWith(".htm")) {
-            throw new InputException("--report " + out + ": the report file must end in .html or .htm");
+            throw new InputException("report " + out + ": the file must end in .html or .htm");
         }
     }
 }

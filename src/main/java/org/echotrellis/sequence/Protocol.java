@@ -263,14 +263,14 @@ public record Protocol(String name, String description, Tissue tissue, double b1
      */
     public Protocol withConstantRefocusFlipDeg(double flipDeg) {
         if (!(flipDeg > 0 && flipDeg <= 360)) {
-            throw new org.echotrellis.InputException("--refocusing-flip-deg must be within (0, 360], got " + flipDeg);
+            throw new org.echotrellis.InputException("refocusing_flip_deg must be within (0, 360], got " + flipDeg);
         }
-        CpmgTrain t = train.orElseThrow(() -> new org.echotrellis.InputException("--refocusing-flip-deg sets the "
+        CpmgTrain t = train.orElseThrow(() -> new org.echotrellis.InputException("refocusing_flip_deg sets the "
                 + "constant flip of an echo-train protocol, but " + source + " is an event list; edit its rf events"));
         double[] f = t.refocusFlipsDeg();
         for (double v : f) {
             if (v != f[0]) {
-                throw new org.echotrellis.InputException("--refocusing-flip-deg replaces a constant refocusing flip, but "
+                throw new org.echotrellis.InputException("refocusing_flip_deg replaces a constant refocusing flip, but "
                         + source + " has a schedule (train.refocusing.flips_deg); edit the schedule instead");
             }
         }

@@ -105,6 +105,17 @@ class BidsCommandTest {
     }
 
     @Test
+    void aCollectionsRefusedSettingIsNamedByItsOption() throws IOException {
+        Path root = dataset();
+        Path out = dir.resolve("derivatives-window");
+        // the window is checked against each collection's T2 grid (from its echo times), so per collection
+        CliRun r = CliRun.of("bids", root.toString(), out.toString(), "participant", "--analysis", "spectrum",
+                "--participant-label", "01", "--fraction-window-ms", "0.001:0.002", "--quiet");
+        assertEquals(2, r.code(), r.err());
+        assertTrue(r.err().contains("sub-01: --fraction-window-ms 0.001:0.002 starts below the T2 grid"), r.err());
+    }
+
+    @Test
     void reportListsEveryCollectionWithTheMedianT2OfItsMap() throws IOException {
         Path root = dataset();
         Path out = dir.resolve("derivatives-report");

@@ -128,7 +128,7 @@ class NiftiTest {
         NiftiHeader h = NiftiHeader.create(NiftiDatatype.UINT8, 2);
         Nifti.write(f, h, new double[] {1, 2}, false);
         InputException e = assertThrows(InputException.class, () -> Nifti.write(f, h, new double[] {3, 4}, false));
-        assertTrue(e.getMessage().contains("--force"), e.getMessage());
+        assertTrue(e.getMessage().contains("exists; overwriting needs force"), e.getMessage());
         Nifti.write(f, h, new double[] {3, 4}, true);
         assertArrayEquals(new double[] {3, 4}, Nifti.read(f).values(), 0.0);
     }

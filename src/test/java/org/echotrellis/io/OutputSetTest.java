@@ -103,7 +103,7 @@ class OutputSetTest {
         firstRun(out, "a");
         try (OutputSet set = OutputSet.open(out, false, List.of())) {
             InputException e = assertThrows(InputException.class, () -> set.plan(List.of("a")));
-            assertTrue(e.getMessage().contains("exists; use --force"), e.getMessage());
+            assertTrue(e.getMessage().contains("exists; overwriting needs force"), e.getMessage());
         }
     }
 

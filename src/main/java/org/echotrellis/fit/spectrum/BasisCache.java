@@ -109,7 +109,7 @@ public final class BasisCache {
 
     private static BasisCache build(CpmgTrain train, TrainSource source, double t1Ms, T2Grid grid,
                                     RefocusSearch search) {
-        Checks.positiveOrInfinite("--t1-ms", t1Ms, null);
+        Checks.positiveOrInfinite("t1_ms", t1Ms, null);
         Checks.require(train.isCpmgPhased(),
                 "the protocol's echo train is not CPMG-phased (refocusing phase = excitation phase ± 90°); "
                         + "spectrum fitting needs a CPMG train");

@@ -40,9 +40,9 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public FractionWindow {
-        Checks.positive("--fraction-window-ms LO", loMs, null);
-        Checks.positive("--fraction-window-ms HI", hiMs, null);
-        Checks.require(hiMs > loMs, "--fraction-window-ms needs LO < HI, got " + loMs + ":" + hiMs);
+        Checks.positive("fraction_window_ms LO", loMs, null);
+        Checks.positive("fraction_window_ms HI", hiMs, null);
+        Checks.require(hiMs > loMs, "fraction_window_ms needs LO < HI, got " + loMs + ":" + hiMs);
     }
 
     /**
@@ -54,12 +54,12 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
      */
     public static FractionWindow parse(String text) {
         String[] parts = text.split(":", -1);
-        Checks.require(parts.length == 2, "--fraction-window-ms must be LO:HI in ms, got '" + text + "'");
+        Checks.require(parts.length == 2, "fraction_window_ms must be LO:HI in ms, got '" + text + "'");
         try {
             return new FractionWindow(Double.parseDouble(parts[0].trim()), Double.parseDouble(parts[1].trim()));
         } catch (NumberFormatException e) {
             throw new org.echotrellis.InputException(
-                    "--fraction-window-ms must be LO:HI in ms (numbers), got '" + text + "'", e);
+                    "fraction_window_ms must be LO:HI in ms (numbers), got '" + text + "'", e);
         }
     }
 
@@ -80,16 +80,16 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
     void checkWithin(T2Grid grid) {
         String w = label();
         Checks.require(loMs >= grid.minMs() * (1 - EDGE),
-                "--fraction-window-ms " + w + " starts below the T2 grid (" + grid.minMs() + " ms); allowed "
+                "fraction_window_ms " + w + " starts below the T2 grid (" + grid.minMs() + " ms); allowed "
                         + grid.minMs() + " to " + grid.maxMs() + " ms");
         Checks.require(hiMs <= grid.maxMs() * (1 + EDGE),
-                "--fraction-window-ms " + w + " ends above the T2 grid (" + grid.maxMs() + " ms); allowed "
+                "fraction_window_ms " + w + " ends above the T2 grid (" + grid.maxMs() + " ms); allowed "
                         + grid.minMs() + " to " + grid.maxMs() + " ms");
         boolean any = false;
         for (int j = 0; j < grid.bins() && !any; j++) {
             any = contains(grid.t2Ms(j));
         }
-        Checks.require(any, "--fraction-window-ms " + w + " contains no T2 grid point (grid "
+        Checks.require(any, "fraction_window_ms " + w + " contains no T2 grid point (grid "
                 + grid.minMs() + " to " + grid.maxMs() + " ms, " + grid.bins() + " bins)");
     }
 

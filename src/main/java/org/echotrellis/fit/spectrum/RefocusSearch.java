@@ -33,12 +33,12 @@ public record RefocusSearch(double loDeg, double hiDeg, int count) implements ja
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public RefocusSearch {
-        Checks.inRange("--refocus-search-deg LO", loDeg, 1e-6, 360, null);
-        Checks.inRange("--refocus-search-deg HI", hiDeg, loDeg, 360, null);
+        Checks.inRange("refocus_search_deg LO", loDeg, 1e-6, 360, null);
+        Checks.inRange("refocus_search_deg HI", hiDeg, loDeg, 360, null);
         Checks.require(count == 1 || count >= 3,
-                "--refocus-search-deg COUNT must be ≥ 3 (the minimum is bracketed), got " + count);
-        Checks.inRange("--refocus-search-deg COUNT", count, 1, 64, null);
-        Checks.require(count == 1 || hiDeg > loDeg, "--refocus-search-deg needs LO < HI, got "
+                "refocus_search_deg COUNT must be ≥ 3 (the minimum is bracketed), got " + count);
+        Checks.inRange("refocus_search_deg COUNT", count, 1, 64, null);
+        Checks.require(count == 1 || hiDeg > loDeg, "refocus_search_deg needs LO < HI, got "
                 + loDeg + ":" + hiDeg);
     }
 
@@ -64,7 +64,7 @@ public record RefocusSearch(double loDeg, double hiDeg, int count) implements ja
      * @return the search of one angle
      */
     public static RefocusSearch fixed(double deg) {
-        Checks.inRange("--refocus-deg", deg, 1e-6, 360, null);
+        Checks.inRange("refocus_deg", deg, 1e-6, 360, null);
         return new RefocusSearch(deg, deg, 1);
     }
 
@@ -76,12 +76,12 @@ public record RefocusSearch(double loDeg, double hiDeg, int count) implements ja
      */
     public static RefocusSearch parse(String text) {
         String[] parts = text.split(":", -1);
-        Checks.require(parts.length == 3, "--refocus-search-deg must be LO:HI:COUNT, got '" + text + "'");
+        Checks.require(parts.length == 3, "refocus_search_deg must be LO:HI:COUNT, got '" + text + "'");
         try {
             return new RefocusSearch(Double.parseDouble(parts[0].trim()), Double.parseDouble(parts[1].trim()),
                     Integer.parseInt(parts[2].trim()));
         } catch (NumberFormatException e) {
-            throw new InputException("--refocus-search-deg must be LO:HI:COUNT (degrees, degrees, integer), got '"
+            throw new InputException("refocus_search_deg must be LO:HI:COUNT (degrees, degrees, integer), got '"
                     + text + "'", e);
         }
     }

@@ -36,6 +36,6 @@ public enum Regularisation {
                 return r;
             }
         }
-        throw new InputException("--regularisation must be one of misfit, cross-validation, none; got '" + text + "'");
+        throw new InputException("regularisation must be one of misfit, cross-validation, none; got '" + text + "'");
     }
 }

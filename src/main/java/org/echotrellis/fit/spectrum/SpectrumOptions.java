@@ -82,14 +82,14 @@ public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularis
     public SpectrumOptions {
         Checks.require(grid != null && regularisation != null && search != null && windows != null,
                 "spectrum options must not be null");
-        Checks.positiveOrInfinite("--t1-ms", t1Ms, null);
-        Checks.inRange("--misfit-increase", misfitIncrease, 1.0, 10.0, null);
-        Checks.require(!windows.isEmpty(), "at least one --fraction-window-ms is needed");
+        Checks.positiveOrInfinite("t1_ms", t1Ms, null);
+        Checks.inRange("misfit_increase", misfitIncrease, 1.0, 10.0, null);
+        Checks.require(!windows.isEmpty(), "at least one fraction_window_ms is needed");
         windows = List.copyOf(windows);
         for (int i = 0; i < windows.size(); i++) {
             FractionWindow w = windows.get(i);
             w.checkWithin(grid);
-            Checks.require(windows.indexOf(w) == i, "--fraction-window-ms " + w.label()
+            Checks.require(windows.indexOf(w) == i, "fraction_window_ms " + w.label()
                     + " is given twice; each window names its own output maps");
         }
     }

@@ -47,7 +47,7 @@ public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Se
     }
 
     /**
-     * Validates the grid; messages name the command-line options.
+     * Validates the grid; messages name the parameters by their keys ({@code t2_min_ms}, ...).
      *
      * @param minMs shortest T2 in ms (first bin)
      * @param maxMs longest T2 in ms (last bin)
@@ -55,11 +55,11 @@ public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Se
      * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
      */
     public T2Grid {
-        Checks.positive("--t2-min-ms", minMs, null);
-        Checks.positive("--t2-max-ms", maxMs, null);
+        Checks.positive("t2_min_ms", minMs, null);
+        Checks.positive("t2_max_ms", maxMs, null);
         Checks.require(maxMs > minMs,
-                "--t2-max-ms must be > --t2-min-ms (" + minMs + " ms), got " + maxMs);
-        Checks.inRange("--t2-bins", bins, 2, MAX_BINS, null);
+                "t2_max_ms must be > t2_min_ms (" + minMs + " ms), got " + maxMs);
+        Checks.inRange("t2_bins", bins, 2, MAX_BINS, null);
     }
 
     /** @return a new array of the grid T2 values in ms, ascending */

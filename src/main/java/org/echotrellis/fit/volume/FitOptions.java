@@ -80,9 +80,9 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
                 b1Max, fold, noiseFromBackground ? Double.NaN : noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return where the fixed T1 comes from: {@code --t1-ms} or {@code protocol tissue} */
+    /** @return where the fixed T1 comes from: {@code t1_ms} (given) or {@code protocol tissue} */
     public String t1Source() {
-        return Double.isNaN(t1Ms) ? "protocol tissue" : "--t1-ms";
+        return Double.isNaN(t1Ms) ? "protocol tissue" : "t1_ms";
     }
 
     /**

@@ -44,7 +44,7 @@ public final class BidsLayout {
         List<String> wantSes = strip(sessions, "ses-");
         for (String p : want) {
             if (!Files.isDirectory(root.resolve("sub-" + p))) {
-                throw new InputException(root + ": no participant sub-" + p + " (--participant-label " + p + ")");
+                throw new InputException(root + ": no participant sub-" + p + " (participant label " + p + ")");
             }
         }
         Map<String, Map<Integer, Path>> groups = new TreeMap<>();
@@ -202,7 +202,7 @@ public final class BidsLayout {
             if (same.size() != 1) {
                 throw new InputException(dir + ": " + maps.size() + " TB1map files " + maps.stream()
                         .map(p -> p.getFileName().toString()).toList() + " and none matches " + key.entities()
-                        + " alone; choose one with --b1-map");
+                        + " alone; give the B1 map explicitly");
             }
             return Optional.of(same.get(0));
         }

@@ -96,7 +96,7 @@ public final class BidsProtocol {
         for (int k = 1; k < n; k++) {
             if (Math.abs(teMs[k] - (k + 1) * esp) > TOLERANCE * esp) {
                 throw new InputException(c.label() + ": echo times " + list(teMs) + " ms are not evenly spaced from the "
-                        + "first (TE_k = k x " + fmt(esp) + " ms); uneven trains need an event-list --protocol");
+                        + "first (TE_k = k x " + fmt(esp) + " ms); uneven trains need an event-list protocol file");
             }
         }
         ObjectNode train = root.has("train") && root.get("train").isObject() ? (ObjectNode) root.get("train") : root.putObject("train");
@@ -126,7 +126,7 @@ public final class BidsProtocol {
         }
         if (ref == null || !fromFile && refocus.isEmpty() && refocusFlipDeg.isEmpty()) {
             throw new InputException(c.label() + ": the refocusing flip angle is missing: no RefocusingFlipAngle in the "
-                    + "sidecars of " + c.echoFiles().get(0).getFileName() + ", no --protocol with train.refocusing and no "
+                    + "sidecars of " + c.echoFiles().get(0).getFileName() + ", no protocol file with train.refocusing and no "
                     + refocusOption);
         }
         try {

@@ -17,7 +17,7 @@ class SpectrumOptionsTest {
         List<FractionWindow> twice = List.of(FractionWindow.parse("10:40"), FractionWindow.parse("10.0:40"));
         InputException e = assertThrows(InputException.class,
                 () -> SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true).withWindows(twice));
-        assertTrue(e.getMessage().contains("--fraction-window-ms") && e.getMessage().contains("10:40"), e.getMessage());
+        assertTrue(e.getMessage().contains("fraction_window_ms") && e.getMessage().contains("10:40"), e.getMessage());
         assertDoesNotThrow(() -> SpectrumOptions.defaults(org.echotrellis.epg.CpmgTrain.constant(32, 10, 180), 1000, true).withWindows(
                 List.of(FractionWindow.parse("10:40"), FractionWindow.parse("10:50"))));
     }

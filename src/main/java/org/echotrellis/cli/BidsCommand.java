@@ -46,7 +46,7 @@ import picocli.CommandLine.Spec;
             "",
             "A collection that fails is reported on stderr and the others go on; the exit code is 2",
             "when any collection failed.", "", "Research tool, not a medical device."})
-public final class BidsCommand implements Callable<Integer> {
+final class BidsCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 

@@ -35,7 +35,7 @@ import picocli.CommandLine.Spec;
             "  spark-submit --class org.echotrellis.cli.Main target/echotrellis.jar cohort \\",
             "      hdfs:///study/bids hdfs:///study/derivatives/echotrellis --analysis fit",
             "", "Research tool, not a medical device."})
-public final class CohortCommand implements Callable<Integer> {
+final class CohortCommand implements Callable<Integer> {
     /** A class of Spark's SQL module: its absence means Spark was not supplied. */
     static final String SPARK_PROBE = "org.apache.spark.sql.SparkSession";
 

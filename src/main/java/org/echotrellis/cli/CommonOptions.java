@@ -3,7 +3,7 @@ package org.echotrellis.cli;
 import picocli.CommandLine.Option;
 
 /** Options shared by every command. */
-public final class CommonOptions {
+final class CommonOptions {
     @Option(names = "--debug", description = "Print stack traces for errors.")
     boolean debug;
 

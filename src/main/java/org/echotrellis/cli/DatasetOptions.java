@@ -25,7 +25,7 @@ import picocli.CommandLine.Option;
  * {@code --spectrum-t2-min-ms}/{@code --spectrum-t2-max-ms}. Each collection's protocol supplies the
  * defaults left open (spectrum grid from its echo times, T1 of its tissue).
  */
-public final class DatasetOptions {
+final class DatasetOptions {
     @Option(names = "--analysis", paramLabel = "A", defaultValue = "fit",
             description = "fit (T2map, M0map, TB1map), spectrum (MWFmap) or both (default: ${DEFAULT-VALUE}).")
     Analysis analysis;

@@ -18,7 +18,7 @@ import picocli.CommandLine.Spec;
         description = "Run the built-in scenarios (invented protocols and tissues) and write plots and summary.md.",
         footer = {"", "Example:", "  java -jar target/echotrellis.jar demo --out plots",
             "", "Prints a short report with run times; the findings go to DIR/summary.md."})
-public final class DemoCommand implements Callable<Integer> {
+final class DemoCommand implements Callable<Integer> {
     /** The demo's parts, in order. */
     static final List<DemoSection> SECTIONS = List.of(
             new FoundationDemo(),

@@ -16,7 +16,7 @@ import java.nio.file.Path;
  * @param runLog lines for the console only (run times and other figures that change from run to
  *     run, which must stay out of the committed summary)
  */
-public record DemoContext(Path outDir, boolean force, StringBuilder summary, PrintWriter err, boolean quiet,
+record DemoContext(Path outDir, boolean force, StringBuilder summary, PrintWriter err, boolean quiet,
         java.util.List<String> runLog) {
 
     /** Adds a line to the console report (never to summary.md). */

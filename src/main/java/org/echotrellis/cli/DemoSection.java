@@ -1,7 +1,7 @@
 package org.echotrellis.cli;
 
 /** One part of the {@code demo}: writes its figures into the demo directory and adds to the summary. */
-public interface DemoSection {
+interface DemoSection {
     /** @return a short title for the summary and the progress line */
     String title();
 

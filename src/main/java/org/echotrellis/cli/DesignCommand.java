@@ -52,7 +52,7 @@ import picocli.CommandLine.Spec;
             "      --protocol sequences/brain-fse-80-3t.yaml \\",
             "      --objective min:20:80 --sar-budget 0.5 --tr-ms 4000 --slices 12",
             "", "Estimates only: the scanner's SAR monitor, local rules and the MR physicist decide."})
-public final class DesignCommand implements Callable<Integer> {
+final class DesignCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 

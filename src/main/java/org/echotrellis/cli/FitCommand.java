@@ -53,7 +53,7 @@ import picocli.CommandLine.Spec;
             "B1 is reported folded (refocusing angle <= 180 deg) for constant trains",
             "without slice selection: B1 = 1 + x and 1 - x give the same magnitude",
             "train. b1_se is '-' (null) where the data do not determine B1."})
-public final class FitCommand implements Callable<Integer> {
+final class FitCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 

@@ -50,7 +50,7 @@ import picocli.CommandLine.Spec;
             "      --phase-lines 192 --tissue white_matter_3t --tissue grey_matter_3t \\",
             "      --phantom labels.png --label 1=white_matter_3t \\",
             "      --label 2=grey_matter_3t --out brain-image"})
-public final class ImageCommand implements Callable<Integer> {
+final class ImageCommand implements Callable<Integer> {
     /** Files written into --out. */
     static final String JSON_FILE = "image.json";
 

@@ -42,7 +42,7 @@ import picocli.CommandLine.Spec;
             "", "Pathway notation: origin (Z0 equilibrium, Rp regrown in period p), then the state after each "
                 + "pulse: Fk transverse with signed order k, Zk longitudinal (sign = direction it re-emerges), "
                 + "S*n = n repeats. Example: Z0 F0 Z-1 F-1 is the stimulated echo of CPMG echo 2."})
-public final class PathwaysCommand implements Callable<Integer> {
+final class PathwaysCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 

@@ -9,7 +9,7 @@ import picocli.CommandLine.Option;
  * (and {@link MapOptions}'s {@code --display-range}) from the parse result and runs the command
  * with those {@link PlotSettings} in scope.
  */
-public final class PlotOptions {
+final class PlotOptions {
     @Option(names = "--plot-scale", paramLabel = "F", defaultValue = "1",
             description = "Size factor of the figures for print, within [0.25, 8]: PNG gets F times the pixels, "
                     + "SVG F times the size; text and lines grow along (default: ${DEFAULT-VALUE}).")

@@ -8,7 +8,7 @@ import java.util.concurrent.atomic.AtomicLong;
  * A one-line progress bar on stderr: items done, percentage, rate and time left. Updates at most
  * every 200 ms; thread-safe; silent when quiet.
  */
-public final class ProgressBar implements AutoCloseable {
+final class ProgressBar implements AutoCloseable {
     private final PrintWriter err;
     private final String what;
     private final long total;

@@ -11,7 +11,7 @@ import picocli.CommandLine.Parameters;
  * The protocol file argument with the tissue and B1 overrides shared by {@code simulate} and
  * {@code pathways}.
  */
-public final class ProtocolInput {
+final class ProtocolInput {
     @picocli.CommandLine.Spec(picocli.CommandLine.Spec.Target.MIXEE)
     picocli.CommandLine.Model.CommandSpec mixee;
 

@@ -30,7 +30,7 @@ import picocli.CommandLine.ParseResult;
  * report.write("fit: " + data, force, r -> VolumeSections.headline(r, result, maps));
  * }</pre>
  */
-public final class ReportOption {
+final class ReportOption {
     /** Option names whose values are outputs, not inputs, and get no checksum. */
     private static final List<String> OUTPUT_PREFIXES = List.of("--out", "--plot", "--diagram", "--report", "--save",
             "--write");

@@ -44,7 +44,7 @@ import picocli.CommandLine.Spec;
             "",
             "--b1 scales every pulse (the excitation too, as a B1 fall-off does);",
             "--refocusing-flip-deg changes only the refocusing pulses."})
-public final class SimulateCommand implements Callable<Integer> {
+final class SimulateCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 

@@ -51,7 +51,7 @@ import picocli.CommandLine.Spec;
             "nominal with slice selection), then refined continuously; fraction window",
             "from the shortest grid T2 to 40 ms.",
             "", "Research tool, not a medical device."})
-public final class SpectrumCommand implements Callable<Integer> {
+final class SpectrumCommand implements Callable<Integer> {
     @Mixin
     CommonOptions common;
 

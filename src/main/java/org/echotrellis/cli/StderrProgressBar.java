@@ -8,7 +8,7 @@ import org.echotrellis.io.ProgressReporter;
  * The {@link ProgressReporter} of the volume commands: draws the command line's {@link ProgressBar}
  * on stderr (units done, percentage, rate, time left). Thread-safe.
  */
-public final class StderrProgressBar implements ProgressReporter {
+final class StderrProgressBar implements ProgressReporter {
     private final PrintWriter err;
     private final boolean quiet;
     private volatile ProgressBar bar;

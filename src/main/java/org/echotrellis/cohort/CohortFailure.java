@@ -11,6 +11,7 @@ import java.util.List;
  * @param stage {@code read} (collections, sidecars, protocol), {@code analysis} (reading the series,
  *        fit/spectrum, writing the maps), {@code labels} or {@code write} (statistics, publishing)
  * @param message one line naming the file and the problem
+ * @serial exclude
  */
 public record CohortFailure(String subject, String session, String stage, String message) implements Serializable {
     private static final long serialVersionUID = 1L;
@@ -18,7 +19,16 @@ public record CohortFailure(String subject, String session, String stage, String
     /** Column names of {@code cohort-failures.csv}. */
     public static final List<String> COLUMNS = List.of("subject", "session", "stage", "message");
 
-    /** Keeps only the first line of the message. */
+    /**
+     * Keeps only the first line of the message.
+     *
+     * @param subject participant label (without {@code sub-})
+     * @param session session label, empty if none
+     * @param stage {@code read} (collections, sidecars, protocol), {@code analysis} (reading the series,
+     *        fit/spectrum, writing the maps), {@code labels} or {@code write} (statistics, publishing)
+
+     * @param message one line naming the file and the problem
+     */
     public CohortFailure {
         message = message == null ? "" : message.split("\\R", 2)[0];
     }

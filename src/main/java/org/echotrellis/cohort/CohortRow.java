@@ -17,6 +17,7 @@ import org.echotrellis.io.RegionStatistics;
  * @param map map name as in the derivative file name (e.g. {@code T2map})
  * @param units unit of the map values as written (e.g. {@code s})
  * @param stats the statistics of the region
+ * @serial exclude
  */
 public record CohortRow(String subject, String session, String acquisition, String run, String map, String units,
                         RegionStatistics stats) implements Serializable {

@@ -19,17 +19,28 @@ public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes,
     /** Echoes of the protocol's acquisition model (slice profile, TR, diffusion). */
     public static final String ACQUISITION = "acquisition";
 
-    /** Copies the arrays. */
+    /**
+     * Copies the arrays.
+     *
+     * @param name tissue name
+     * @param t1Ms T1 in ms
+     * @param t2Ms T2 in ms
+     * @param echoes |echo| per echo under the schedule
+     * @param echoes180 |echo| per echo under all-180° refocusing
+     * @param echoModel {@link #IDEAL} or {@link #ACQUISITION}: which model gave the echoes
+     */
     public Comparison {
         echoes = echoes.clone();
         echoes180 = echoes180.clone();
     }
 
+    /** @return |echo| per echo under the schedule (a copy) */
     @Override
     public double[] echoes() {
         return echoes.clone();
     }
 
+    /** @return |echo| per echo under all-180° refocusing (a copy) */
     @Override
     public double[] echoes180() {
         return echoes180.clone();
@@ -39,7 +50,9 @@ public record Comparison(String name, double t1Ms, double t2Ms, double[] echoes,
      * Simulates a tissue under a schedule and under all-180° refocusing.
      *
      * @param problem the train (its tissue is replaced)
-     * @param name tissue name @param t1Ms T1 @param t2Ms T2
+     * @param name tissue name
+     * @param t1Ms T1
+     * @param t2Ms T2
      * @param flipsDeg nominal refocusing flips (not modified)
      * @return the comparison
      */

@@ -25,7 +25,7 @@ import org.echotrellis.Checks;
  * {@link #pulseAndEcho(double)}. One instance per thread; the workspace grows and is reused, no
  * allocation per echo. Cost O(N²) per train of N echoes.
  */
-public final class CpmgStepper {
+final class CpmgStepper {
     private double[] fp = new double[0];
     private double[] fm = new double[0];
     private double[] z = new double[0];

@@ -35,7 +35,28 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
                            double[] target, int startupEchoes, int firstUnreachableEcho, int unreachableEchoes,
                            double reachableScale, double budgetScale, double objectiveValue, double constantFlipDeg,
                            double constantObjective, ExposureSummary exposure, List<Comparison> comparisons) {
-    /** Copies arrays and the list. */
+    /**
+     * Copies arrays and the list.
+     *
+     * @param mode "target" or "objective"
+     * @param spec the --target or --objective value
+     * @param problem the design problem
+     * @param flipsDeg nominal refocusing flips
+     * @param predicted signed echoes of the design tissue
+     * @param target effective target per echo (prescribed mode), else empty
+     * @param startupEchoes start-up echoes (prescribed mode)
+     * @param firstUnreachableEcho first echo that misses its target, 0 when none (prescribed mode)
+     * @param unreachableEchoes number of echoes that miss (prescribed mode)
+     * @param reachableScale largest factor of the target that is reachable everywhere, NaN if none
+     * @param budgetScale largest factor of the target reachable everywhere by a schedule that meets the
+     *                    limits, when the schedule itself does not meet them (prescribed mode); NaN
+     *                    otherwise or when none does
+     * @param objectiveValue objective of the schedule (budgeted mode), else NaN
+     * @param constantFlipDeg best constant flip in the same limits (budgeted mode), else NaN
+     * @param constantObjective objective of that constant schedule, else NaN
+     * @param exposure RF figures of the schedule
+     * @param comparisons design tissue first, then the comparison tissues
+     */
     public DesignReport {
         flipsDeg = flipsDeg.clone();
         predicted = predicted.clone();
@@ -43,16 +64,19 @@ public record DesignReport(String mode, String spec, DesignProblem problem, doub
         comparisons = List.copyOf(comparisons);
     }
 
+    /** @return nominal refocusing flips (a copy) */
     @Override
     public double[] flipsDeg() {
         return flipsDeg.clone();
     }
 
+    /** @return signed echoes of the design tissue (a copy) */
     @Override
     public double[] predicted() {
         return predicted.clone();
     }
 
+    /** @return effective target per echo (prescribed mode), else empty (a copy) */
     @Override
     public double[] target() {
         return target.clone();

@@ -29,9 +29,17 @@ public sealed interface EchoTarget {
     /** @return the specification in option syntax, for reports */
     String spec();
 
-    /** The same level at every echo. @param level amplitude in [0, 1] */
+    /**
+     * The same level at every echo.
+     *
+     * @param level amplitude in [0, 1]
+     */
     record Constant(double level) implements EchoTarget {
-        /** Validates the level. */
+        /**
+         * Validates the level.
+         *
+         * @param level amplitude in [0, 1]
+         */
         public Constant {
             checkLevel("constant level", level);
         }
@@ -49,9 +57,19 @@ public sealed interface EchoTarget {
         }
     }
 
-    /** A straight line from the first to the last echo. @param first echo 1 @param last echo N */
+    /**
+     * A straight line from the first to the last echo.
+     *
+     * @param first echo 1
+     * @param last echo N
+     */
     record Ramp(double first, double last) implements EchoTarget {
-        /** Validates both ends. */
+        /**
+         * Validates both ends.
+         *
+         * @param first echo 1
+         * @param last echo N
+         */
         public Ramp {
             checkLevel("ramp start", first);
             checkLevel("ramp end", last);
@@ -79,7 +97,13 @@ public sealed interface EchoTarget {
      * @param start amplitude at echo 1, or NaN for the ideal 180° first echo of the design tissue
      */
     record Decay(double pseudoT2Ms, double start) implements EchoTarget {
-        /** Validates the decay constant and start. */
+        /**
+         * Validates the decay constant and start.
+         *
+         * @param pseudoT2Ms decay constant in ms
+         * @param start amplitude at echo 1, or NaN for the ideal 180° first echo of the design tissue
+         * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+         */
         public Decay {
             Checks.positiveOrInfinite("target decay pseudo-T2 (ms)", pseudoT2Ms, null);
             if (!Double.isNaN(start)) {
@@ -103,9 +127,19 @@ public sealed interface EchoTarget {
         }
     }
 
-    /** Explicit amplitudes, one per echo. @param values amplitudes @param source file name */
+    /**
+     * Explicit amplitudes, one per echo.
+     *
+     * @param values amplitudes
+     * @param source file name
+     */
     record Listed(double[] values, String source) implements EchoTarget {
-        /** Copies and validates the values. */
+        /**
+         * Copies and validates the values.
+         *
+         * @param values amplitudes
+         * @param source file name
+         */
         public Listed {
             values = values.clone();
             for (int i = 0; i < values.length; i++) {
@@ -113,6 +147,7 @@ public sealed interface EchoTarget {
             }
         }
 
+        /** @return the target amplitude of every echo, in [0, 1] (a copy) */
         @Override
         public double[] values() {
             return values.clone();

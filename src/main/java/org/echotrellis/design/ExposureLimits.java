@@ -10,7 +10,13 @@ import org.echotrellis.Checks;
  * @param b1rmsLimitUt largest allowed B1+rms in µT, or +Infinity for none
  */
 public record ExposureLimits(double sarBudget, double b1rmsLimitUt) {
-    /** Validates both limits. */
+    /**
+     * Validates both limits.
+     *
+     * @param sarBudget largest allowed relative SAR, within (0, 1]
+     * @param b1rmsLimitUt largest allowed B1+rms in µT, or +Infinity for none
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public ExposureLimits {
         Checks.require(sarBudget > 0 && sarBudget <= 1, "sar_budget must be within (0, 1] "
                 + "(a fraction of the SAR of the all-180° train), got " + sarBudget);

@@ -19,7 +19,7 @@ import org.apache.commons.math3.analysis.solvers.BrentSolver;
  *
  * <p>One instance per thread; no allocation per echo apart from the result arrays.
  */
-public final class FlipInverter {
+final class FlipInverter {
     private static final double TANGENT_TOLERANCE = 1e-12;
 
     private final CpmgStepper stepper = new CpmgStepper();

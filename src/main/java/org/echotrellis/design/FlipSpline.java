@@ -10,7 +10,7 @@ import org.echotrellis.Checks;
  * from echo 1 to the last echo it spans, joined by a natural cubic spline (linear for K = 2) and
  * clamped to the flip bounds.
  */
-public final class FlipSpline {
+final class FlipSpline {
     private final double[] positions;
     private final int echoes;
 

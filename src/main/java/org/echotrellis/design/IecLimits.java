@@ -28,12 +28,12 @@ public final class IecLimits {
      * @param partialBodyRule partial-body limit as text
      * @param note supervision required
      */
-    public record Mode(String mode, double wholeBodyWPerKg, double headWPerKg, String partialBodyRule, String note) { }
+    record Mode(String mode, double wholeBodyWPerKg, double headWPerKg, String partialBodyRule, String note) { }
 
     private IecLimits() { }
 
     /** @return the normal and first-level controlled operating modes */
-    public static List<Mode> modes() {
+    static List<Mode> modes() {
         return List.of(
                 new Mode("normal", 2.0, 3.2, "10 - 8·r W/kg (2 to 10)", "no physiological stress expected"),
                 new Mode("first level controlled", 4.0, 3.2, "10 - 6·r W/kg (4 to 10)", "medical supervision"));

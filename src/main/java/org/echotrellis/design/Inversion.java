@@ -12,9 +12,20 @@ package org.echotrellis.design;
  *                             or 0 when all are reached
  * @param unreachableEchoes number of echoes that miss their target
  */
-public record Inversion(double[] flipsDeg, double[] predicted, double[] effectiveTarget, int startupEchoes,
+record Inversion(double[] flipsDeg, double[] predicted, double[] effectiveTarget, int startupEchoes,
                         int firstUnreachableEcho, int unreachableEchoes) {
-    /** Copies the arrays. */
+    /**
+     * Copies the arrays.
+     *
+     * @param flipsDeg nominal refocusing flip per echo in degrees
+     * @param predicted EPG echo of the design tissue per echo (signed, CPMG frame)
+     * @param effectiveTarget the target each echo was inverted to (the prescription, blended over
+     *                        the start-up; for the Alsop first echo the echo that pulse gives)
+     * @param startupEchoes number of start-up echoes
+     * @param firstUnreachableEcho first echo (1-based) whose target no flip in the bounds reaches,
+     *                             or 0 when all are reached
+     * @param unreachableEchoes number of echoes that miss their target
+     */
     public Inversion {
         flipsDeg = flipsDeg.clone();
         predicted = predicted.clone();

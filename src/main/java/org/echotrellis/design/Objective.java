@@ -34,9 +34,18 @@ public sealed interface Objective {
     /** @return highest echo index the objective reads */
     int lastEcho();
 
-    /** Signal at one echo. @param echo 1-based echo index */
+    /**
+     * Magnitude of the design tissue's echo at one echo.
+     *
+     * @param echo 1-based echo index
+     */
     record SignalAt(int echo) implements Objective {
-        /** Validates the index. */
+        /**
+         * Checks the echo index.
+         *
+         * @param echo 1-based echo index
+         * @throws org.echotrellis.InputException if the index is outside 1 to {@link DesignProblem#MAX_ECHOES}
+         */
         public SignalAt {
             Checks.inRange("objective signal echo", echo, 1, DesignProblem.MAX_ECHOES, null);
         }
@@ -52,9 +61,20 @@ public sealed interface Objective {
         }
     }
 
-    /** Smallest echo over a window. @param from first echo @param to last echo (inclusive) */
+    /**
+     * Smallest echo magnitude of the design tissue over a window of echoes.
+     *
+     * @param from first echo of the window, 1-based
+     * @param to   last echo of the window, 1-based and inclusive
+     */
     record MinOver(int from, int to) implements Objective {
-        /** Validates the window. */
+        /**
+         * Checks the window.
+         *
+         * @param from first echo of the window, 1-based
+         * @param to last echo of the window, 1-based and inclusive
+         * @throws org.echotrellis.InputException if the window is empty or reaches beyond {@link DesignProblem#MAX_ECHOES}
+         */
         public MinOver {
             Checks.inRange("objective min FROM", from, 1, DesignProblem.MAX_ECHOES, null);
             Checks.inRange("objective min TO", to, from, DesignProblem.MAX_ECHOES, null);
@@ -74,13 +94,28 @@ public sealed interface Objective {
     /**
      * Contrast between two tissues at one echo.
      *
-     * @param echo 1-based echo index
-     * @param nameA first tissue @param t1A its T1 in ms @param t2A its T2 in ms
-     * @param nameB second tissue @param t1B its T1 in ms @param t2B its T2 in ms
+     * @param echo  1-based echo index
+     * @param nameA first tissue's name
+     * @param t1A   first tissue's T1 in ms (+Infinity for none)
+     * @param t2A   first tissue's T2 in ms (+Infinity for none)
+     * @param nameB second tissue's name
+     * @param t1B   second tissue's T1 in ms (+Infinity for none)
+     * @param t2B   second tissue's T2 in ms (+Infinity for none)
      */
     record Contrast(int echo, String nameA, double t1A, double t2A, String nameB, double t1B, double t2B)
             implements Objective {
-        /** Validates the index and relaxation times. */
+        /**
+         * Checks the echo index and the relaxation times.
+         *
+         * @param echo 1-based echo index
+         * @param nameA first tissue's name
+         * @param t1A first tissue's T1 in ms (+Infinity for none)
+         * @param t2A first tissue's T2 in ms (+Infinity for none)
+         * @param nameB second tissue's name
+         * @param t1B second tissue's T1 in ms (+Infinity for none)
+         * @param t2B second tissue's T2 in ms (+Infinity for none)
+         * @throws org.echotrellis.InputException if the index is outside 1 to {@link DesignProblem#MAX_ECHOES} or a relaxation time is not &gt; 0
+         */
         public Contrast {
             Checks.inRange("objective contrast echo", echo, 1, DesignProblem.MAX_ECHOES, null);
             Checks.positiveOrInfinite("t1_ms of " + nameA, t1A, "objective");
@@ -106,7 +141,9 @@ public sealed interface Objective {
      * @param echo 1-based echo at k = 0
      * @param lines phase-encoding lines (a multiple of {@code echoes})
      * @param echoes echoes of the train
-     * @param name tissue @param t1 its T1 in ms @param t2 its T2 in ms
+     * @param name tissue name
+     * @param t1 the tissue's T1 in ms (+Infinity for none)
+     * @param t2 the tissue's T2 in ms (+Infinity for none)
      * @param minSignal smallest acceptable centre weight (0 for none)
      * @param maxSidelobe largest acceptable side lobe relative to the PSF peak
      */
@@ -115,7 +152,19 @@ public sealed interface Objective {
         /** Side-lobe limit when none is given. */
         public static final double DEFAULT_MAX_SIDELOBE = 0.05;
 
-        /** Validates. */
+        /**
+         * Checks the echo, the line count, the relaxation times and the limits.
+         *
+         * @param echo 1-based echo at k = 0
+         * @param lines phase-encoding lines, a multiple of {@code echoes}
+         * @param echoes echoes of the train
+         * @param name tissue name
+         * @param t1 the tissue's T1 in ms (+Infinity for none)
+         * @param t2 the tissue's T2 in ms (+Infinity for none)
+         * @param minSignal smallest acceptable centre weight, 0 to 1
+         * @param maxSidelobe largest acceptable side lobe relative to the PSF peak, 0 to 1
+         * @throws org.echotrellis.InputException if a value is outside its range or {@code lines} is not a multiple of {@code echoes}
+         */
         public PsfWidth {
             Checks.inRange("objective psf ECHO", echo, 1, echoes, null);
             Checks.inRange("objective psf LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);
@@ -146,12 +195,30 @@ public sealed interface Objective {
      * @param lines phase-encoding lines (a multiple of {@code echoes})
      * @param echoes echoes of the train
      * @param maxFwhmPx largest allowed FWHM in px (≥ 1, the delta)
-     * @param nameA first tissue @param t1A its T1 in ms @param t2A its T2 in ms
-     * @param nameB second tissue @param t1B its T1 in ms @param t2B its T2 in ms
+     * @param nameA first tissue's name
+     * @param t1A first tissue's T1 in ms (+Infinity for none)
+     * @param t2A first tissue's T2 in ms (+Infinity for none)
+     * @param nameB second tissue's name
+     * @param t1B second tissue's T1 in ms (+Infinity for none)
+     * @param t2B second tissue's T2 in ms (+Infinity for none)
      */
     record ContrastAtWidth(int echo, int lines, int echoes, double maxFwhmPx, String nameA, double t1A, double t2A,
                            String nameB, double t1B, double t2B) implements Objective {
-        /** Validates. */
+        /**
+         * Checks the echo, the line count, the width limit and the relaxation times.
+         *
+         * @param echo 1-based echo at k = 0
+         * @param lines phase-encoding lines, a multiple of {@code echoes}
+         * @param echoes echoes of the train
+         * @param maxFwhmPx largest allowed FWHM in px, 1 to {@code lines}
+         * @param nameA first tissue's name
+         * @param t1A first tissue's T1 in ms (+Infinity for none)
+         * @param t2A first tissue's T2 in ms (+Infinity for none)
+         * @param nameB second tissue's name
+         * @param t1B second tissue's T1 in ms (+Infinity for none)
+         * @param t2B second tissue's T2 in ms (+Infinity for none)
+         * @throws org.echotrellis.InputException if a value is outside its range or {@code lines} is not a multiple of {@code echoes}
+         */
         public ContrastAtWidth {
             Checks.inRange("objective cnr ECHO", echo, 1, echoes, null);
             Checks.inRange("objective cnr LINES", lines, 1, org.echotrellis.image.KSpaceOrdering.MAX_LINES, null);

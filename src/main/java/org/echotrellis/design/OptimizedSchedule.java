@@ -11,9 +11,18 @@ package org.echotrellis.design;
  * @param constantObjective objective value of the constant schedule
  * @param evaluations objective evaluations used by the optimiser
  */
-public record OptimizedSchedule(double[] flipsDeg, double[] knotsDeg, double objective, double constantFlipDeg,
+record OptimizedSchedule(double[] flipsDeg, double[] knotsDeg, double objective, double constantFlipDeg,
                                 double constantObjective, int evaluations) {
-    /** Copies the arrays. */
+    /**
+     * Copies the arrays.
+     *
+     * @param flipsDeg optimised nominal flips, one per echo (within the limits)
+     * @param knotsDeg knot flips before the feasibility scaling
+     * @param objective objective value of {@code flipsDeg}
+     * @param constantFlipDeg best constant flip within the limits
+     * @param constantObjective objective value of the constant schedule
+     * @param evaluations objective evaluations used by the optimiser
+     */
     public OptimizedSchedule {
         flipsDeg = flipsDeg.clone();
         knotsDeg = knotsDeg.clone();

@@ -10,7 +10,7 @@ import org.apache.commons.math3.analysis.solvers.BrentSolver;
  * kind in the parameter convention. Used to choose the flip of the Alsop start-up
  * (first pulse 90° + α/2).
  */
-public final class PseudoSteadyState {
+final class PseudoSteadyState {
     private PseudoSteadyState() { }
 
     /**

@@ -35,7 +35,17 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
     /** Averaging window of B1+rms in ms (10 s; McRobbie 2020, IEC 60601-2-33). */
     public static final double B1RMS_WINDOW_MS = 10_000;
 
-    /** Validates durations, TR and slice count. */
+    /**
+     * Validates durations, TR and slice count.
+     *
+     * @param refocusShape envelope of every refocusing pulse
+     * @param refocusMs duration of every refocusing pulse in ms
+     * @param excitationShape envelope of the excitation pulse
+     * @param excitationMs duration of the excitation pulse in ms
+     * @param trMs repetition time in ms, or NaN when unknown (no B1+rms then)
+     * @param slices number of trains (e.g. slices) played per TR (≥ 1)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public RfExposure {
         Checks.inRange("pulse_ms", refocusMs, 1e-3, 100, null);
         Checks.inRange("excitation_pulse_ms", excitationMs, 1e-3, 100, null);
@@ -56,7 +66,12 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
         return Math.toRadians(flipDeg) / (gamma * durationMs * 1e-3 * shape.areaFraction()) * 1e6;
     }
 
-    /** @return ∫B1²dt of one pulse in µT²·s */
+    /**
+     * @param flipDeg flip angle in degrees
+     * @param shape pulse envelope (its area and power fractions)
+     * @param durationMs pulse duration in ms
+     * @return ∫B1²dt of one pulse in µT²·s
+     */
     public static double energyUt2s(double flipDeg, PulseShape shape, double durationMs) {
         double peak = b1PeakUt(flipDeg, shape, durationMs);
         return peak * peak * shape.powerFraction() * durationMs * 1e-3;
@@ -77,14 +92,22 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
         return s / (flipsDeg.length * 180.0 * 180.0);
     }
 
-    /** @return ∫B1²dt of one train (excitation + refocusing) in µT²·s */
+    /**
+     * @param excitationFlipDeg excitation flip angle in degrees (played with the excitation shape and duration)
+     * @param flipsDeg refocusing flip angles in degrees, one per echo (not modified)
+     * @return ∫B1²dt of one train (excitation + refocusing) in µT²·s
+     */
     public double trainEnergyUt2s(double excitationFlipDeg, double[] flipsDeg) {
         double unit = energyUt2s(180, refocusShape, refocusMs);
         return energyUt2s(excitationFlipDeg, excitationShape, excitationMs)
                 + unit * relativeSar(flipsDeg) * flipsDeg.length;
     }
 
-    /** @return RF energy of the train, excitation included, relative to the all-180° train */
+    /**
+     * @param excitationFlipDeg excitation flip angle in degrees (played with the excitation shape and duration)
+     * @param flipsDeg refocusing flip angles in degrees, one per echo (not modified)
+     * @return RF energy of the train, excitation included, relative to the all-180° train
+     */
     public double relativeSarWithExcitation(double excitationFlipDeg, double[] flipsDeg) {
         double[] full = new double[flipsDeg.length];
         java.util.Arrays.fill(full, 180);
@@ -100,6 +123,8 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
      * B1+rms with {@link #slices()} trains per TR, excitation included, averaged over one TR or over the
      * 10 s window when TR is longer (the energy of one TR then falls within the worst window).
      *
+     * @param excitationFlipDeg excitation flip angle in degrees (played with the excitation shape and duration)
+     * @param flipsDeg refocusing flip angles in degrees, one per echo (not modified)
      * @return B1+rms in µT, or NaN when no TR is known
      */
     public double b1rmsUt(double excitationFlipDeg, double[] flipsDeg) {
@@ -110,12 +135,21 @@ public record RfExposure(PulseShape refocusShape, double refocusMs, PulseShape e
         return Math.sqrt(slices * trainEnergyUt2s(excitationFlipDeg, flipsDeg) / (windowMs * 1e-3));
     }
 
-    /** @return mean RF power measure Σ∫B1²dt / TR in µT² (NaN without TR) */
+    /**
+     * @param excitationFlipDeg excitation flip angle in degrees (played with the excitation shape and duration)
+     * @param flipsDeg refocusing flip angles in degrees, one per echo (not modified)
+     * @return mean RF power measure Σ∫B1²dt / TR in µT² (NaN without TR)
+     */
     public double powerUt2(double excitationFlipDeg, double[] flipsDeg) {
         return hasTr() ? slices * trainEnergyUt2s(excitationFlipDeg, flipsDeg) / (trMs * 1e-3) : Double.NaN;
     }
 
-    /** @return a copy with another TR and slice count (same pulses) */
+    /**
+     * @param newTrMs repetition time in ms, or NaN when unknown
+     * @param newSlices trains (e.g. slices) played per TR, ≥ 1
+     * @return a copy with another TR and slice count (same pulses)
+     * @throws org.echotrellis.InputException if TR is not &gt; 0 or the slice count is outside 1 to 10 000
+     */
     public RfExposure withTiming(double newTrMs, int newSlices) {
         return new RfExposure(refocusShape, refocusMs, excitationShape, excitationMs, newTrMs, newSlices);
     }

@@ -12,7 +12,13 @@ import org.echotrellis.Checks;
  * @param powerUt2 mean RF power measure Σ∫B1²dt / TR of the reference, in µT²
  */
 public record SarReference(double sarWPerKg, double powerUt2) {
-    /** Validates both values. */
+    /**
+     * Validates both values.
+     *
+     * @param sarWPerKg SAR reported by the scanner for the reference, in W/kg
+     * @param powerUt2 mean RF power measure Σ∫B1²dt / TR of the reference, in µT²
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public SarReference {
         Checks.positive("reference_sar_w_per_kg", sarWPerKg, null);
         Checks.positive("reference RF power", powerUt2, null);

@@ -29,7 +29,7 @@ import org.echotrellis.InputException;
  *
  * <p>Not thread-safe; one instance per thread.
  */
-public final class ScheduleOptimizer {
+final class ScheduleOptimizer {
     private final ObjectiveEvaluator evaluator = new ObjectiveEvaluator();
     private int evaluations;
 

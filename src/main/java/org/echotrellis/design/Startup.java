@@ -17,7 +17,10 @@ import org.echotrellis.InputException;
  * </ul>
  */
 public sealed interface Startup {
-    /** @return number of start-up echoes for a train of the given length */
+    /**
+     * @param trainEchoes echoes of the whole train
+     * @return number of start-up echoes for a train of the given length
+     */
     int echoes(int trainEchoes);
 
     /** @return option syntax */
@@ -49,9 +52,18 @@ public sealed interface Startup {
         }
     }
 
-    /** Blended ramp over the first echoes. @param length number of echoes (1 to 64) */
+    /**
+     * Blended ramp over the first echoes.
+     *
+     * @param length number of echoes (1 to 64)
+     */
     record Ramp(int length) implements Startup {
-        /** Validates the length. */
+        /**
+         * Validates the length.
+         *
+         * @param length number of echoes (1 to 64)
+         * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+         */
         public Ramp {
             Checks.inRange("startup ramp length", length, 1, 64, null);
         }

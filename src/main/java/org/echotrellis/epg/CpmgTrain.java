@@ -23,7 +23,17 @@ public record CpmgTrain(int echoes, double echoSpacingMs, double excitationFlipD
     /** Largest supported echo count. */
     public static final int MAX_ECHOES = 4096;
 
-    /** Validates and copies. */
+    /**
+     * Validates and copies.
+     *
+     * @param echoes number of echoes (= refocusing pulses), 1 to {@link #MAX_ECHOES}
+     * @param echoSpacingMs echo spacing ESP in ms
+     * @param excitationFlipDeg excitation flip in degrees
+     * @param excitationPhaseDeg excitation RF phase in degrees
+     * @param refocusFlipsDeg refocusing flip per pulse in degrees (length = echoes)
+     * @param refocusPhasesDeg refocusing RF phase per pulse in degrees (length = echoes)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public CpmgTrain {
         Checks.inRange("echoes", echoes, 1, MAX_ECHOES, null);
         Checks.positive("echo_spacing_ms", echoSpacingMs, null);
@@ -71,42 +81,69 @@ public record CpmgTrain(int echoes, double echoSpacingMs, double excitationFlipD
         return new CpmgTrain(echoes, echoSpacingMs, excitationDeg, 90, refocusDeg, new double[echoes]);
     }
 
-    /** @return a copy with other refocusing flips (same phases) */
+    /**
+     * @param flipsDeg refocusing flips in degrees, one per echo, 0 to 360 (copied)
+     * @return a copy with other refocusing flips (same phases)
+     * @throws org.echotrellis.InputException if the new value breaks the rules of the constructor
+     */
     public CpmgTrain withRefocusFlipsDeg(double[] flipsDeg) {
         return new CpmgTrain(echoes, echoSpacingMs, excitationFlipDeg, excitationPhaseDeg, flipsDeg, refocusPhasesDeg);
     }
 
-    /** @return a copy with another excitation flip */
+    /**
+     * @param flipDeg excitation flip in degrees, 0 to 360
+     * @return a copy with another excitation flip
+     * @throws org.echotrellis.InputException if the new value breaks the rules of the constructor
+     */
     public CpmgTrain withExcitationFlipDeg(double flipDeg) {
         return new CpmgTrain(echoes, echoSpacingMs, flipDeg, excitationPhaseDeg, refocusFlipsDeg, refocusPhasesDeg);
     }
 
-    /** @return a copy with another echo spacing */
+    /**
+     * @param espMs echo spacing ESP in ms, &gt; 0
+     * @return a copy with another echo spacing
+     * @throws org.echotrellis.InputException if the new value breaks the rules of the constructor
+     */
     public CpmgTrain withEchoSpacingMs(double espMs) {
         return new CpmgTrain(echoes, espMs, excitationFlipDeg, excitationPhaseDeg, refocusFlipsDeg, refocusPhasesDeg);
     }
 
-    /** @return refocusing flip of pulse i (0-based) in degrees */
+    /**
+     * @param i pulse index, 0-based
+     * @return refocusing flip of pulse i (0-based) in degrees
+     */
     public double refocusFlipDeg(int i) {
         return refocusFlipsDeg[i];
     }
 
-    /** @return refocusing phase of pulse i (0-based) in degrees */
+    /**
+     * @param i pulse index, 0-based
+     * @return refocusing phase of pulse i (0-based) in degrees
+     */
     public double refocusPhaseDeg(int i) {
         return refocusPhasesDeg[i];
     }
 
+    /**
+     * @return the refocusing flip of every pulse in degrees (a copy)
+     */
     @Override
     public double[] refocusFlipsDeg() {
         return refocusFlipsDeg.clone();
     }
 
+    /**
+     * @return the refocusing RF phase of every pulse in degrees (a copy)
+     */
     @Override
     public double[] refocusPhasesDeg() {
         return refocusPhasesDeg.clone();
     }
 
-    /** @return echo time of echo n (1-based) in ms */
+    /**
+     * @param n echo number, 1-based
+     * @return echo time of echo n (1-based) in ms
+     */
     public double echoTimeMs(int n) {
         return n * echoSpacingMs;
     }

@@ -5,7 +5,7 @@ import org.echotrellis.epg.CpmgTrain;
 
 /**
  * The echo model of one protocol at fixed T1 with its derivatives with respect to ln T2 and B1, for
- * one thread. For the plain CPMG train with instantaneous pulses the exact derivative-carrying EPG
+ * one thread (extended phase graphs, Weigel 2015; the fitted model of Lebel &amp; Wilman 2010). For the plain CPMG train with instantaneous pulses the exact derivative-carrying EPG
  * engine runs at every evaluation; for any other acquisition (slice profile, repetition time,
  * diffusion) the model is the shared {@link TrainSurface} tabulated once per run, so no pulse is
  * simulated per voxel. Magnitude data are fitted, so the model is |g_n|: in the CPMG frame an echo

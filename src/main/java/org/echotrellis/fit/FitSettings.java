@@ -24,7 +24,22 @@ import org.echotrellis.sequence.Tissue;
 public record FitSettings(Protocol protocol, double t1Ms, double t2MinMs, double t2MaxMs, double b1Min, double b1Max,
                           boolean fold, double noiseSigma, boolean monoOffset, boolean monoSkipFirst) {
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param protocol the acquisition; must be a CPMG train ({@link Protocol#cpmg()})
+     * @param t1Ms fixed T1 in ms (the echo train depends weakly on it; Lebel &amp; Wilman 2010)
+     * @param t2MinMs lower T2 bound in ms
+     * @param t2MaxMs upper T2 bound in ms
+     * @param b1Min lower B1 bound
+     * @param b1Max upper B1 bound (before folding)
+     * @param fold report the folded B1 where the train is symmetric about a refocusing angle of 180°
+     *        (constant refocusing, no slice selection): α and 360° − α give identical magnitude trains
+     * @param noiseSigma channel noise σ for the Rician mean model, or NaN for plain least squares
+     * @param monoOffset fit a constant offset in the mono-exponential model
+     * @param monoSkipFirst drop the first echo in the mono-exponential model
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public FitSettings {
         Checks.positiveOrInfinite("t1_ms", t1Ms, null);
         Checks.positive("t2_min_ms", t2MinMs, null);
@@ -65,32 +80,57 @@ public record FitSettings(Protocol protocol, double t1Ms, double t2MinMs, double
         return protocol.cpmg().orElseThrow();
     }
 
-    /** @return a copy with another noise σ (NaN for none) */
+    /**
+     * @param sigma channel noise σ in signal units for the Rician mean model, or NaN for plain least squares
+     * @return a copy with another noise σ (NaN for none)
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withNoiseSigma(double sigma) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, sigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with another fixed T1 */
+    /**
+     * @param t1 fixed T1 in ms, &gt; 0 (+Infinity for none)
+     * @return a copy with another fixed T1
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withT1Ms(double t1) {
         return new FitSettings(protocol, t1, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with other T2 bounds */
+    /**
+     * @param lo lower T2 bound in ms, &gt; 0
+     * @param hi upper T2 bound in ms, &gt; {@code lo}
+     * @return a copy with other T2 bounds
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withT2Bounds(double lo, double hi) {
         return new FitSettings(protocol, t1Ms, lo, hi, b1Min, b1Max, fold, noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with other B1 bounds */
+    /**
+     * @param lo lower B1 bound (scale of the nominal flips), &gt; 0
+     * @param hi upper B1 bound before folding, &gt; {@code lo}
+     * @return a copy with other B1 bounds
+     * @throws org.echotrellis.InputException if the new values break the rules of the constructor
+     */
     public FitSettings withB1Bounds(double lo, double hi) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, lo, hi, fold, noiseSigma, monoOffset, monoSkipFirst);
     }
 
-    /** @return a copy with other mono-exponential options */
+    /**
+     * @param offset fit a constant offset in the mono-exponential model
+     * @param skipFirst drop the first echo in the mono-exponential model
+     * @return a copy with other mono-exponential options
+     */
     public FitSettings withMono(boolean offset, boolean skipFirst) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, fold, noiseSigma, offset, skipFirst);
     }
 
-    /** @return a copy with folding on or off */
+    /**
+     * @param f report the folded B1 where the train is symmetric about a 180° refocusing angle
+     * @return a copy with folding on or off
+     */
     public FitSettings withFold(boolean f) {
         return new FitSettings(protocol, t1Ms, t2MinMs, t2MaxMs, b1Min, b1Max, f, noiseSigma, monoOffset, monoSkipFirst);
     }

@@ -15,7 +15,7 @@ package org.echotrellis.fit;
  * of Abramowitz &amp; Stegun, Handbook of Mathematical Functions (1964), 9.8.1–9.8.4 (relative
  * error below about 2e-7).
  */
-public final class Rician {
+final class Rician {
     private static final double SQRT_HALF_PI = Math.sqrt(Math.PI / 2);
 
     private Rician() { }

@@ -8,7 +8,8 @@ import org.echotrellis.io.VoxelStatus;
 
 /**
  * A T2 fit of one model for one thread: {@link #estimate} for single decays, and the
- * {@link VoxelKernel} of the volume pipeline. Create instances with {@link Factory}, which builds
+ * {@link VoxelKernel} of the volume pipeline. The EPG model fits T2, B1 and amplitude to the
+ * magnitude echo train, so that refocusing errors do not bias T2 (Lebel &amp; Wilman 2010). Create instances with {@link Factory}, which builds
  * the shared start dictionary once.
  */
 public final class T2Fit implements VoxelKernel {

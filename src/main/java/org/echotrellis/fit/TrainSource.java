@@ -26,7 +26,7 @@ public final class TrainSource {
      * @param protocol the acquisition
      * @param t1Ms fixed T1 in ms
      */
-    public TrainSource(Protocol protocol, double t1Ms) {
+    TrainSource(Protocol protocol, double t1Ms) {
         this(protocol, t1Ms, 2.0);
     }
 
@@ -108,7 +108,7 @@ public final class TrainSource {
      * @param im receives the quadrature part; modified
      * @param off offset into re and im
      */
-    public void train(double t2Ms, double b1, double[] re, double[] im, int off) {
+    void train(double t2Ms, double b1, double[] re, double[] im, int off) {
         EchoTrain t = Simulator.simulate(protocol, t1Ms, t2Ms, b1);
         double[] r = t.re();
         double[] q = t.im();

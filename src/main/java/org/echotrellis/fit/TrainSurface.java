@@ -25,7 +25,7 @@ import org.echotrellis.Checks;
  * direct simulation in {@code TrainSurfaceTest}). Immutable after construction and shared by all threads; evaluation
  * allocates nothing.
  */
-public final class TrainSurface {
+final class TrainSurface {
     /** Grid nodes beyond the bounds on each side. */
     static final int MARGIN = 3;
     /** Step in ln T2. */
@@ -215,7 +215,7 @@ public final class TrainSurface {
     }
 
     /** Per-thread scratch for {@link #evaluate}. */
-    public final class Workspace {
+    final class Workspace {
         private final double[] v = new double[stride];
         private final double[] t = new double[stride];
         private final double[] b = new double[stride];

@@ -7,7 +7,7 @@ package org.echotrellis.image;
  * factors (the usual 2ᵃ·3ᵇ·5ᶜ line counts), O(L²) for a prime L. Not a hot path (the phantom image
  * and the per-tissue PSF); it allocates work arrays per call.
  */
-public final class Dft {
+final class Dft {
     private Dft() { }
 
     /**

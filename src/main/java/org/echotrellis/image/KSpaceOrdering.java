@@ -35,7 +35,15 @@ public record KSpaceOrdering(int lines, int echoes, Kind kind, int centerEcho) {
         CENTRIC
     }
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param lines number of phase-encoding lines L
+     * @param echoes echoes per train E
+     * @param kind ordering rule
+     * @param centerEcho 1-based echo placed at k = 0 for rotated linear ordering, or 0 for none
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public KSpaceOrdering {
         Checks.inRange("phase_lines", lines, 1, MAX_LINES, null);
         Checks.inRange("echoes per train", echoes, 1, MAX_LINES, null);
@@ -55,18 +63,34 @@ public record KSpaceOrdering(int lines, int echoes, Kind kind, int centerEcho) {
         }
     }
 
-    /** @return linear ordering without rotation */
+    /**
+     * @param lines number of phase-encoding lines L, 1 to {@link #MAX_LINES}
+     * @param echoes echoes per train E; L must be a multiple of E
+     * @return linear ordering without rotation
+     * @throws org.echotrellis.InputException if L is out of range or not a multiple of E
+     */
     public static KSpaceOrdering linear(int lines, int echoes) {
         return new KSpaceOrdering(lines, echoes, Kind.LINEAR, 0);
     }
 
-    /** @return linear ordering rotated so that echo {@code centerEcho} (1-based) acquires k = 0 */
+    /**
+     * @param lines number of phase-encoding lines L, 1 to {@link #MAX_LINES}
+     * @param echoes echoes per train E; L must be a multiple of E
+     * @param centerEcho 1-based echo that acquires k = 0, 1 to E
+     * @return linear ordering rotated so that echo {@code centerEcho} (1-based) acquires k = 0
+     * @throws org.echotrellis.InputException if L is out of range or not a multiple of E, or the centre echo is outside 1 to E
+     */
     public static KSpaceOrdering linear(int lines, int echoes, int centerEcho) {
         Checks.inRange("center_echo", centerEcho, 1, Math.max(1, echoes), null);
         return new KSpaceOrdering(lines, echoes, Kind.LINEAR, centerEcho);
     }
 
-    /** @return centric ordering */
+    /**
+     * @param lines number of phase-encoding lines L, 1 to {@link #MAX_LINES}
+     * @param echoes echoes per train E; L must be a multiple of E
+     * @return centric ordering
+     * @throws org.echotrellis.InputException if L is out of range or not a multiple of E
+     */
     public static KSpaceOrdering centric(int lines, int echoes) {
         return new KSpaceOrdering(lines, echoes, Kind.CENTRIC, 0);
     }

@@ -18,7 +18,16 @@ import org.echotrellis.InputException;
  * @param description a short description for captions
  */
 public record Phantom(int rows, int cols, int[] region, String description) {
-    /** Validates and copies. */
+    /**
+     * Validates and copies.
+     *
+     * @param rows number of rows (phase-encoding direction)
+     * @param cols number of columns (read-out direction)
+     * @param region tissue index of every pixel, or −1
+     * @param description a short description for captions
+     * @throws IllegalArgumentException if a side is below 1 or {@code region} does not hold rows × cols
+     *         pixels
+     */
     public Phantom {
         if (rows < 1 || cols < 1 || region.length != rows * cols) {
             throw new IllegalArgumentException("phantom of " + rows + " x " + cols + " needs " + rows * cols
@@ -27,6 +36,7 @@ public record Phantom(int rows, int cols, int[] region, String description) {
         region = region.clone();
     }
 
+    /** @return tissue index of every pixel, or −1 (a copy) */
     @Override
     public int[] region() {
         return region.clone();
@@ -99,7 +109,11 @@ public record Phantom(int rows, int cols, int[] region, String description) {
         return new Phantom(rows, cols, region, source);
     }
 
-    /** @return the label values of a label image that a mapping leaves without a tissue, sorted */
+    /**
+     * @param labels label value of every pixel of the label image
+     * @param mapping label value to tissue name
+     * @return the label values of a label image that a mapping leaves without a tissue, sorted
+     */
     public static List<Integer> unmapped(int[] labels, Map<Integer, String> mapping) {
         TreeSet<Integer> out = new TreeSet<>();
         for (int v : labels) {

@@ -25,7 +25,7 @@ package org.echotrellis.image;
  * for integer x, so PSF(x) = (1 − r^L) / (L·r^c·√(1 − 2r·cos θ + r²)): a peak of
  * (1 − r^L)/(L·r^c·(1 − r)) at x = 0 and monotone flanks (no side lobes), wider for shorter T2.
  */
-public final class PointSpread {
+final class PointSpread {
     private PointSpread() { }
 
     /**

@@ -57,7 +57,7 @@ public final class PsfKernel {
      * @param out receives the centred PSF magnitude, length L (NaN when the centre echo is 0)
      * @return {@code out}
      */
-    public double[] psf(double[] echoes, double[] out) {
+    double[] psf(double[] echoes, double[] out) {
         if (echoes.length < this.echoes || out.length != lines) {
             throw new IllegalArgumentException("need " + this.echoes + " echoes and an output of " + lines
                     + " values, got " + echoes.length + " and " + out.length);

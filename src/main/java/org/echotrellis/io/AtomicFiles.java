@@ -196,7 +196,13 @@ public final class AtomicFiles {
         }
     }
 
-    /** Writes UTF-8 text atomically. */
+    /**
+     * Writes UTF-8 text atomically.
+     *
+     * @param target the file to write
+     * @param text the whole content
+     * @param force replace an existing file; without it an existing file is an input error
+     */
     public static void writeString(Path target, String text, boolean force) {
         write(target, force, out -> out.write(text.getBytes(StandardCharsets.UTF_8)));
     }

@@ -21,7 +21,7 @@ public final class CheckedWriter extends Writer {
      * @param out the writer to guard
      * @param name the stream's name for messages, e.g. "standard output"
      */
-    public CheckedWriter(Writer out, String name) {
+    CheckedWriter(Writer out, String name) {
         this.out = out;
         this.name = name;
     }

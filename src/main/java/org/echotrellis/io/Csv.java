@@ -26,7 +26,7 @@ public final class Csv {
     private Csv() { }
 
     /** A parsed row and the line it starts on. */
-    public record Row(int line, List<String> cells) {
+    record Row(int line, List<String> cells) {
         /** Copies. */
         public Row {
             cells = List.copyOf(cells);
@@ -40,7 +40,7 @@ public final class Csv {
      * @return the rows with their line numbers (1-based)
      * @throws IOException for malformed CSV (for example an unclosed quote)
      */
-    public static List<Row> read(Reader in) throws IOException {
+    static List<Row> read(Reader in) throws IOException {
         List<Row> rows = new ArrayList<>();
         CsvSchema schema = CsvSchema.emptySchema().withComments();
         try (JsonParser p = MAPPER.readerFor(String[].class).with(schema).createParser(in)) {

@@ -13,7 +13,14 @@ import java.util.List;
  */
 public record DecayTable(String source, List<String> names, double[] echoTimesMs, double[][] decays) {
 
-    /** Copies. */
+    /**
+     * Copies.
+     *
+     * @param source file name for messages
+     * @param names column names of the decays (header row, without the echo-time column)
+     * @param echoTimesMs echo times in ms, strictly increasing
+     * @param decays decays[c][n] = value of decay c at echo n
+     */
     public DecayTable {
         names = List.copyOf(names);
         echoTimesMs = echoTimesMs.clone();
@@ -38,11 +45,13 @@ public record DecayTable(String source, List<String> names, double[] echoTimesMs
         return decays[c].clone();
     }
 
+    /** @return echo times in ms, strictly increasing (a copy) */
     @Override
     public double[] echoTimesMs() {
         return echoTimesMs.clone();
     }
 
+    /** @return decays[c][n] = value of decay c at echo n (a deep copy) */
     @Override
     public double[][] decays() {
         return deepCopy(decays);

@@ -24,11 +24,19 @@ public record LabelImage(int rows, int cols, int[] labels, String source) {
     /** Largest accepted side length. */
     public static final int MAX_SIDE = 4096;
 
-    /** Copies. */
+    /**
+     * Copies.
+     *
+     * @param rows number of rows (y)
+     * @param cols number of columns (x)
+     * @param labels label of every pixel
+     * @param source file name (and slice) for messages
+     */
     public LabelImage {
         labels = labels.clone();
     }
 
+    /** @return label of every pixel (a copy) */
     @Override
     public int[] labels() {
         return labels.clone();

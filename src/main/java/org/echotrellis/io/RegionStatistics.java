@@ -23,6 +23,7 @@ import org.echotrellis.InputException;
  * @param p50 median
  * @param p75 75th percentile
  * @param p95 95th percentile
+ * @serial exclude
  */
 public record RegionStatistics(String region, long voxels, double mean, double sd, double p5, double p25, double p50,
                                double p75, double p95) implements Serializable {

@@ -23,7 +23,17 @@ public record VolumeJob(NiftiInput data, Optional<NiftiImage> mask, Optional<Nif
     /** Default slab budget: 4 M doubles (32 MB; two slabs are held). */
     public static final long DEFAULT_SLAB_VALUES = 4L << 20;
 
-    /** Validates shapes. */
+    /**
+     * Validates shapes.
+     *
+     * @param data the open echo series
+     * @param mask optional mask on the same grid
+     * @param b1Map optional B1 map on the same grid
+     * @param threads worker threads (≥ 1)
+     * @param slabValues upper bound on doubles per slab buffer (≥ 1; at least one slice is read; the
+     *        pipeline holds two buffers)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public VolumeJob {
         Checks.inRange("threads", threads, 1, 1024, null);
         if (slabValues < 1) {

@@ -15,7 +15,7 @@ public class WriteFailure extends RuntimeException {
     private static final long serialVersionUID = 1L;
 
     /** @param message one line naming the path and the system's reason */
-    public WriteFailure(String message) {
+    WriteFailure(String message) {
         super(message);
     }
 
@@ -23,7 +23,7 @@ public class WriteFailure extends RuntimeException {
      * @param message one line naming the path and the system's reason
      * @param cause the underlying exception, shown only with {@code --debug}
      */
-    public WriteFailure(String message, Throwable cause) {
+    WriteFailure(String message, Throwable cause) {
         super(message, cause);
     }
 

@@ -43,32 +43,52 @@ public final class ClassDecomposition {
         return labels.size();
     }
 
-    /** @param e echo index (0-based) @return its label */
+    /**
+     * @param e echo index (0-based)
+     * @return its label
+     */
     public String label(int e) {
         return labels.get(e);
     }
 
-    /** @param e echo index (0-based) @return echo time in ms */
+    /**
+     * @param e echo index (0-based)
+     * @return echo time in ms
+     */
     public double timeMs(int e) {
         return timesMs[e];
     }
 
-    /** @param e echo index (0-based) @return number of classes reported (m = 0 .. count&minus;1) */
+    /**
+     * @param e echo index (0-based)
+     * @return number of classes reported (m = 0 .. count&minus;1)
+     */
     public int classCount(int e) {
         return offset[e + 1] - offset[e];
     }
 
-    /** @param e echo index @param m class @return real part of class m of echo e (0 beyond the last class) */
+    /**
+     * @param e echo index
+     * @param m class index, m ≥ 0 (periods spent as dephased longitudinal magnetization)
+     * @return real part of class m of echo e (0 beyond the last class)
+     */
     public double classRe(int e, int m) {
         return m < classCount(e) ? re[offset[e] + m] : 0.0;
     }
 
-    /** @param e echo index @param m class @return imaginary part of class m of echo e (0 beyond the last class) */
+    /**
+     * @param e echo index
+     * @param m class index, m ≥ 0 (periods spent as dephased longitudinal magnetization)
+     * @return imaginary part of class m of echo e (0 beyond the last class)
+     */
     public double classIm(int e, int m) {
         return m < classCount(e) ? im[offset[e] + m] : 0.0;
     }
 
-    /** @param e echo index @return real part of the echo (sum of its classes) */
+    /**
+     * @param e echo index
+     * @return real part of the echo (sum of its classes)
+     */
     public double echoRe(int e) {
         double s = 0;
         for (int i = offset[e]; i < offset[e + 1]; i++) {
@@ -77,7 +97,10 @@ public final class ClassDecomposition {
         return s;
     }
 
-    /** @param e echo index @return imaginary part of the echo (sum of its classes) */
+    /**
+     * @param e echo index
+     * @return imaginary part of the echo (sum of its classes)
+     */
     public double echoIm(int e) {
         double s = 0;
         for (int i = offset[e]; i < offset[e + 1]; i++) {
@@ -86,7 +109,10 @@ public final class ClassDecomposition {
         return s;
     }
 
-    /** @param e echo index @return echo magnitude |A| */
+    /**
+     * @param e echo index
+     * @return echo magnitude |A|
+     */
     public double magnitude(int e) {
         return Math.hypot(echoRe(e), echoIm(e));
     }

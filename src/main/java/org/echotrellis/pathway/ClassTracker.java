@@ -23,7 +23,7 @@ import org.echotrellis.Checks;
  *
  * <p>Not thread-safe: one tracker per thread. Workspaces grow on demand and are reused.
  */
-public final class ClassTracker {
+final class ClassTracker {
     private double[] fRe = new double[0];
     private double[] fIm = new double[0];
     private double[] zRe = new double[0];

@@ -17,7 +17,7 @@ public final class PathwayAnalysis {
      * @param events a protocol's event list
      * @return the schedule the analysis works on
      */
-    public static Schedule schedule(List<Event> events) {
+    static Schedule schedule(List<Event> events) {
         Schedule.Builder b = Schedule.builder();
         for (Event e : events) {
             if (e instanceof Event.Rf rf) {

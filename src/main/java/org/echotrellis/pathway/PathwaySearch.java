@@ -36,7 +36,14 @@ public final class PathwaySearch {
      * @param maxEntries cap on stored partial pathways (memory bound)
      */
     public record Limits(int top, double minAmplitude, int maxEntries) {
-        /** Validates the limits. */
+        /**
+         * Validates the limits.
+         *
+         * @param top number of pathways wanted (1..10000)
+         * @param minAmplitude pathways smaller than this (units of M0) are not followed (&ge; 0)
+         * @param maxEntries cap on stored partial pathways (memory bound)
+         * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+         */
         public Limits {
             Checks.inRange("top", top, 1, 10_000, null);
             Checks.inRange("min_amplitude", minAmplitude, 0, 1, null);
@@ -66,7 +73,7 @@ public final class PathwaySearch {
     private double threshold;
 
     /** Creates a search with empty workspaces (reusable, not thread-safe). */
-    public PathwaySearch() { }
+    PathwaySearch() { }
 
     /**
      * @param s the event list
@@ -77,7 +84,7 @@ public final class PathwaySearch {
      * @param limits search limits
      * @return the largest pathways of that echo and the unexplained rest
      */
-    public TopPathways find(Schedule s, int echo, double t1Ms, double t2Ms, double b1, Limits limits) {
+    TopPathways find(Schedule s, int echo, double t1Ms, double t2Ms, double b1, Limits limits) {
         Checks.inRange("echo", echo + 1, 1, s.echoCount(), null);
         ClassDecomposition d = new ClassTracker().decompose(s, t1Ms, t2Ms, b1);
         return find(s, echo, t1Ms, t2Ms, b1, limits, d.echoRe(echo), d.echoIm(echo));

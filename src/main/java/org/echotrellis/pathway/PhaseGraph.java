@@ -3,8 +3,9 @@ package org.echotrellis.pathway;
 import java.util.List;
 
 /**
- * The data of a phase-graph diagram: every configuration state held during every interval, as a
- * line segment in (time, dephasing order) with the state's magnitude, plus the RF pulses and echoes.
+ * The data of a phase-graph diagram (Hennig, J Magn Reson 78:397, 1988): every configuration state
+ * held during every interval, as a line segment in (time, dephasing order) with the state's
+ * magnitude, plus the RF pulses and echoes.
  * Only states that can still reach an echo are included, and only those above the tracing threshold.
  *
  * @param segments the state segments, in time order
@@ -15,7 +16,15 @@ import java.util.List;
  */
 public record PhaseGraph(List<Segment> segments, List<Pulse> pulses, List<EchoMark> echoes, double threshold,
                          int maxOrder) {
-    /** Copies the lists. */
+    /**
+     * Copies the lists.
+     *
+     * @param segments the state segments, in time order
+     * @param pulses the RF pulses
+     * @param echoes the echo read-outs
+     * @param threshold magnitude below which states were left out (units of M0)
+     * @param maxOrder largest |order| included
+     */
     public PhaseGraph {
         segments = List.copyOf(segments);
         pulses = List.copyOf(pulses);

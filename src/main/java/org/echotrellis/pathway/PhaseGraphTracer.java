@@ -11,7 +11,7 @@ import org.echotrellis.Checks;
  * Z<sub>k</sub> keeps its order. The states come from the {@link ClassTracker} (all classes summed), so
  * only states that can still reach an echo are present.
  */
-public final class PhaseGraphTracer {
+final class PhaseGraphTracer {
     private PhaseGraphTracer() { }
 
     /**

@@ -17,7 +17,7 @@ import org.echotrellis.Checks;
  *
  * <p>Immutable and thread-safe.
  */
-public final class Schedule {
+final class Schedule {
     /** Largest workspace the pathway analysis allocates for one schedule (bytes). */
     public static final long MAX_WORKSPACE_BYTES = 256L << 20;
     /** Largest class decomposition accepted, in state updates (about half a minute on one core). */
@@ -214,7 +214,7 @@ public final class Schedule {
     }
 
     /** Collects events in time order. Not thread-safe. */
-    public static final class Builder {
+    static final class Builder {
         private final List<double[]> ops = new ArrayList<>();
         private final List<String> labels = new ArrayList<>();
 

@@ -20,7 +20,7 @@ import java.util.List;
  * Example, CPMG echo 2: {@code Z0 F0 F-1*2} is the double spin echo, {@code Z0 F0 Z-1 F-1} the
  * stimulated echo (stored by pulse 2, recalled by pulse 3).
  */
-public final class StateNotation {
+final class StateNotation {
     private StateNotation() { }
 
     /**

@@ -18,7 +18,18 @@ import java.util.List;
 public record TopPathways(int echo, double echoRe, double echoIm, List<Pathway> pathways,
                           double unexplainedRe, double unexplainedIm, double unexplainedShare,
                           boolean complete) {
-    /** Copies the list. */
+    /**
+     * Copies the list.
+     *
+     * @param echo echo index, 0-based
+     * @param echoRe real part of the echo A
+     * @param echoIm imaginary part of the echo A
+     * @param pathways the pathways found, largest first
+     * @param unexplainedRe real part of A minus the listed pathways
+     * @param unexplainedIm imaginary part of A minus the listed pathways
+     * @param unexplainedShare 1 minus the listed shares: Re(rest&middot;conj A)/|A|<sup>2</sup> (NaN if A vanishes)
+     * @param complete true if every pathway above the amplitude threshold was reached within the budget
+     */
     public TopPathways {
         pathways = List.copyOf(pathways);
     }

@@ -46,25 +46,48 @@ public final class BarChart {
         return new BarChart(title, valueLabel);
     }
 
-    /** Adds a bar with palette colour {@code color}. */
+    /**
+     * Adds a bar with palette colour {@code color}.
+     *
+     * @param label category label shown beside the bar
+     * @param value bar length in the unit of the value-axis label
+     * @param color palette colour index ({@link ChartStyle#color(int)})
+     * @return this builder
+     */
     public BarChart bar(String label, double value, int color) {
         bars.add(new Bar(label, value, color));
         return this;
     }
 
-    /** Adds a dashed reference line across the bars at {@code value}. */
+    /**
+     * Adds a dashed reference line across the bars at {@code value}.
+     *
+     * @param label text drawn at the line, e.g. the budget's name
+     * @param value position on the value axis
+     * @return this builder
+     */
     public BarChart referenceLine(String label, double value) {
         lines.add(new Line(label, value));
         return this;
     }
 
-    /** Sets a subtitle line under the title. */
+    /**
+     * Sets a subtitle line under the title.
+     *
+     * @param text the subtitle
+     * @return this builder
+     */
     public BarChart subtitle(String text) {
         subtitle = text;
         return this;
     }
 
-    /** Sets the decimal pattern of the value labels (default 0.000). */
+    /**
+     * Sets the decimal pattern of the value labels (default 0.000).
+     *
+     * @param pattern a {@link java.text.DecimalFormat} pattern such as {@code 0.00}
+     * @return this builder
+     */
     public BarChart valueFormat(String pattern) {
         format = pattern;
         return this;

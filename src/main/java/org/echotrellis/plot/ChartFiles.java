@@ -71,7 +71,7 @@ public final class ChartFiles {
      * @param path a .png or .svg path
      * @return its twin
      */
-    public static Path twin(Path path) {
+    static Path twin(Path path) {
         String n = path.getFileName().toString();
         String stem = n.substring(0, n.length() - 4);
         return path.resolveSibling(stem + (isSvg(path) ? ".png" : ".svg"));

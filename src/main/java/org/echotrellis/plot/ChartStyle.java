@@ -64,7 +64,10 @@ public final class ChartStyle {
 
     private ChartStyle() { }
 
-    /** @return the colour of series i (cycling) */
+    /**
+     * @param i series index; indices past the palette cycle
+     * @return the colour of series i (cycling)
+     */
     public static Color color(int i) {
         return SERIES_COLORS[Math.floorMod(i, SERIES_COLORS.length)];
     }
@@ -102,7 +105,11 @@ public final class ChartStyle {
         return d == null ? null : d.clone();
     }
 
-    /** @return a line stroke of the given width with dash pattern {@link #dashPattern(int)} */
+    /**
+     * @param width line width in px at plot scale 1
+     * @param i index among the chart's plain-line series
+     * @return a line stroke of the given width with dash pattern {@link #dashPattern(int)}
+     */
     public static BasicStroke patterned(float width, int i) {
         float[] d = dashPattern(i);
         return d == null ? line(width)
@@ -131,12 +138,18 @@ public final class ChartStyle {
         return AffineTransform.getRotateInstance(angle).createTransformedShape(a);
     }
 
-    /** @return a solid line stroke of the given width */
+    /**
+     * @param width line width in px at plot scale 1
+     * @return a solid line stroke of the given width
+     */
     public static BasicStroke line(float width) {
         return new BasicStroke(width, BasicStroke.CAP_ROUND, BasicStroke.JOIN_ROUND);
     }
 
-    /** @return a dashed line stroke of the given width */
+    /**
+     * @param width line width in px at plot scale 1
+     * @return a dashed line stroke of the given width
+     */
     public static BasicStroke dashed(float width) {
         return new BasicStroke(width, BasicStroke.CAP_BUTT, BasicStroke.JOIN_ROUND, 10f, new float[] {6f, 4f}, 0f);
     }
@@ -147,7 +160,7 @@ public final class ChartStyle {
      * @param chart modified in place
      * @return the same chart
      */
-    public static JFreeChart apply(JFreeChart chart) {
+    static JFreeChart apply(JFreeChart chart) {
         chart.setBackgroundPaint(PAGE);
         chart.setAntiAlias(true);
         chart.setTextAntiAlias(true);

@@ -15,18 +15,34 @@ public final class EchoPlot {
         chart = LineChart.create(title, "Echo time (ms)", "Echo amplitude (fraction of M0)").xFromZero();
     }
 
-    /** @return a new echo plot with the given title */
+    /**
+     * @param title chart title
+     * @return a new echo plot with the given title
+     */
     public static EchoPlot create(String title) {
         return new EchoPlot(title);
     }
 
-    /** Adds a predicted train (magnitudes). */
+    /**
+     * Adds a predicted train (magnitudes).
+     *
+     * @param name legend entry
+     * @param train the predicted train; its echo times in ms and magnitudes are drawn
+     * @return this plot
+     */
     public EchoPlot train(String name, EchoTrain train) {
         chart.add(name, train.timesMs(), train.magnitudes(), LineChart.Look.LINE_MARKERS, nextColor());
         return this;
     }
 
-    /** Adds a series of magnitudes at given times. */
+    /**
+     * Adds a series of magnitudes at given times.
+     *
+     * @param name legend entry
+     * @param timesMs echo times in ms
+     * @param values magnitudes as fractions of M0, one per time
+     * @return this plot
+     */
     public EchoPlot series(String name, double[] timesMs, double[] values) {
         chart.add(name, timesMs, values, LineChart.Look.LINE_MARKERS, nextColor());
         return this;
@@ -52,7 +68,12 @@ public final class EchoPlot {
         return this;
     }
 
-    /** Adds a subtitle. */
+    /**
+     * Adds a subtitle.
+     *
+     * @param s the subtitle, e.g. the protocol and tissue
+     * @return this plot
+     */
     public EchoPlot subtitle(String s) {
         chart.subtitle(s);
         return this;

@@ -59,7 +59,12 @@ public final class ImagePanels {
         return this;
     }
 
-    /** Sets a subtitle line. */
+    /**
+     * Sets a subtitle line.
+     *
+     * @param text the subtitle
+     * @return this builder
+     */
     public ImagePanels subtitle(String text) {
         this.subtitle = text;
         return this;

@@ -69,12 +69,31 @@ public final class LineChart {
         return new LineChart(title, xLabel, yLabel);
     }
 
-    /** Adds a series with the next palette colour; arrays are copied. */
+    /**
+     * Adds a series with the next palette colour; arrays are copied.
+     *
+     * @param name legend entry; a repeated name gets a number
+     * @param x x values in the unit of the x-axis label; values beyond ±1e100 become gaps
+     * @param y y values, as many as {@code x}
+     * @param look how the series is drawn
+     * @return this builder
+     * @throws IllegalArgumentException if {@code x} and {@code y} differ in length
+     */
     public LineChart add(String name, double[] x, double[] y, Look look) {
         return add(name, x, y, look, series.size());
     }
 
-    /** Adds a series with palette colour {@code color}; arrays are copied. */
+    /**
+     * Adds a series with palette colour {@code color}; arrays are copied.
+     *
+     * @param name legend entry; a repeated name gets a number
+     * @param x x values in the unit of the x-axis label; values beyond ±1e100 become gaps
+     * @param y y values, as many as {@code x}
+     * @param look how the series is drawn
+     * @param color palette colour index (markers and dashes follow it), or {@link #INK}
+     * @return this builder
+     * @throws IllegalArgumentException if {@code x} and {@code y} differ in length
+     */
     public LineChart add(String name, double[] x, double[] y, Look look, int color) {
         if (x.length != y.length) {
             throw new IllegalArgumentException("series " + name + ": x and y lengths differ");
@@ -94,32 +113,57 @@ public final class LineChart {
         return c;
     }
 
-    /** Sets a subtitle line under the title. */
+    /**
+     * Sets a subtitle line under the title.
+     *
+     * @param text the subtitle, e.g. the settings behind the curves
+     * @return this builder
+     */
     public LineChart subtitle(String text) {
         this.subtitle = text;
         return this;
     }
 
-    /** Uses a logarithmic x axis. */
+    /**
+     * Uses a logarithmic x axis.
+     *
+     * @return this builder
+     */
     public LineChart logX() {
         this.logX = true;
         return this;
     }
 
-    /** Starts the (linear) x axis at zero, e.g. for times counted from the excitation. */
+    /**
+     * Starts the (linear) x axis at zero, e.g. for times counted from the excitation.
+     *
+     * @return this builder
+     */
     public LineChart xFromZero() {
         this.xFromZero = true;
         return this;
     }
 
-    /** Fixes the y range. */
+    /**
+     * Fixes the y range.
+     *
+     * @param min lower end of the y axis, in the unit of the y-axis label
+     * @param max upper end of the y axis
+     * @return this builder
+     */
     public LineChart yRange(double min, double max) {
         this.yMin = min;
         this.yMax = max;
         return this;
     }
 
-    /** Fixes the x range (linear x axis only). */
+    /**
+     * Fixes the x range (linear x axis only).
+     *
+     * @param min lower end of the x axis, in the unit of the x-axis label
+     * @param max upper end of the x axis
+     * @return this builder
+     */
     public LineChart xRange(double min, double max) {
         this.xMin = min;
         this.xMax = max;

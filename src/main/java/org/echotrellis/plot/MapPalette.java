@@ -19,7 +19,7 @@ import org.jfree.chart.renderer.PaintScale;
  * own colour conversion. Values below the range take the first colour, above it the last; NaN is
  * transparent.
  */
-public final class MapPalette implements PaintScale {
+final class MapPalette implements PaintScale {
     private static final double[][] LCH = {{25, 17, 228}, {43, 30, 258}, {62, 34, 318}, {80, 24, 15}, {95, 8, 70}};
     private static final int LEVELS = 512;
     private static final Color[] TABLE = table();

@@ -19,7 +19,15 @@ public record PlotSettings(double scale, double displayLo, double displayHi) {
     public static final PlotSettings DEFAULT = new PlotSettings(1, Double.NaN, Double.NaN);
     private static final ThreadLocal<PlotSettings> CURRENT = ThreadLocal.withInitial(() -> DEFAULT);
 
-    /** Checks the values. */
+    /**
+     * Checks the values.
+     *
+     * @param scale size factor: PNG files get {@code scale} times the pixels, SVG files the same factor
+     *     in their declared width and height; text, lines and markers grow with it
+     * @param displayLo lower end of the map colour range, or NaN for the data's own range
+     * @param displayHi upper end of the map colour range, or NaN
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public PlotSettings {
         if (!(scale >= 0.25 && scale <= 8)) {
             throw new InputException("plot_scale must be within [0.25, 8], got " + scale);

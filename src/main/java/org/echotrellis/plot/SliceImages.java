@@ -149,7 +149,7 @@ public final class SliceImages {
      * @param step downsampling step (≥ 1, may be fractional)
      * @return an image of ceil(nx/step) × ceil(ny/step) pixels
      */
-    public BufferedImage slice(float[] map, int nx, int ny, int z, double step) {
+    BufferedImage slice(float[] map, int nx, int ny, int z, double step) {
         int w = (int) Math.ceil(nx / step);
         int h = (int) Math.ceil(ny / step);
         int[] rgb = new int[w * h];
@@ -178,7 +178,7 @@ public final class SliceImages {
      * @param img an image
      * @return its PNG bytes
      */
-    public static byte[] png(BufferedImage img) {
+    static byte[] png(BufferedImage img) {
         ByteArrayOutputStream out = new ByteArrayOutputStream(img.getWidth() * img.getHeight() + 256);
         try {
             if (!ImageIO.write(img, "png", out)) {

@@ -16,7 +16,7 @@ import java.util.concurrent.Executors;
  * background daemon thread, so a command can register its inputs before its main work and the
  * report only waits for what is left.
  */
-public final class Checksums {
+final class Checksums {
     private static final ExecutorService HASHER = Executors.newSingleThreadExecutor(r -> {
         Thread t = new Thread(r, "report-checksums");
         t.setDaemon(true);

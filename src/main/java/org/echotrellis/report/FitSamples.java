@@ -19,7 +19,7 @@ import org.jfree.chart.JFreeChart;
  * voxels with the largest residual relative to their amplitude. Only the slices holding these
  * voxels are read again; each is fitted again with the run's settings to draw its curve.
  */
-public final class FitSamples {
+final class FitSamples {
     /** Worst-residual voxels shown. */
     static final int WORST = 3;
 

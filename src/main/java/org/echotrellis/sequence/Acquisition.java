@@ -31,7 +31,17 @@ public record Acquisition(Optional<RfPulse> excitationPulse, Optional<RfPulse> r
     private static final Acquisition NONE = new Acquisition(Optional.empty(), Optional.empty(), false, 1.0,
             Double.POSITIVE_INFINITY, Optional.empty());
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param excitationPulse the excitation envelope and duration, if given
+     * @param refocusingPulse the refocusing envelope and duration, if given
+     * @param sliceSelective true: the echo is the integral across the slice of the complex signal
+     * @param refocusingWidthRatio refocusing slice width over excitation slice width (&gt; 0; 1 if not given)
+     * @param repetitionMs repetition time TR in ms; +Infinity means one train from equilibrium
+     * @param crusher the crusher lobes around each refocusing pulse, if given
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public Acquisition {
         excitationPulse = excitationPulse == null ? Optional.empty() : excitationPulse;
         refocusingPulse = refocusingPulse == null ? Optional.empty() : refocusingPulse;

@@ -142,7 +142,7 @@ public final class AcquisitionModel {
      * @param b1Max largest B1 scale that will be evaluated (tables cover it)
      * @return the model
      */
-    public static AcquisitionModel of(Protocol p, double b1Max) {
+    static AcquisitionModel of(Protocol p, double b1Max) {
         return new AcquisitionModel(p, b1Max);
     }
 

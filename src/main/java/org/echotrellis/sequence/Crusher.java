@@ -12,7 +12,13 @@ import org.echotrellis.Checks;
  */
 public record Crusher(double cyclesPerMm, double durationMs) {
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param cyclesPerMm q, dephasing of one lobe in cycles per mm (&gt; 0)
+     * @param durationMs δ, duration of one lobe in ms (&gt; 0)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public Crusher {
         Checks.positive("crusher cycles_per_mm", cyclesPerMm, null);
         Checks.positive("crusher duration_ms", durationMs, null);

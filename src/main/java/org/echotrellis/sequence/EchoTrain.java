@@ -12,7 +12,14 @@ import java.util.List;
  */
 public record EchoTrain(List<String> labels, double[] timesMs, double[] re, double[] im) {
 
-    /** Copies. */
+    /**
+     * Copies.
+     *
+     * @param labels echo labels
+     * @param timesMs echo times in ms from the first RF pulse
+     * @param re real parts
+     * @param im imaginary parts
+     */
     public EchoTrain {
         labels = List.copyOf(labels);
         timesMs = timesMs.clone();
@@ -25,12 +32,18 @@ public record EchoTrain(List<String> labels, double[] timesMs, double[] re, doub
         return re.length;
     }
 
-    /** @return magnitude of echo i (0-based) */
+    /**
+     * @param i echo index, 0-based
+     * @return magnitude of echo i (0-based)
+     */
     public double magnitude(int i) {
         return Math.hypot(re[i], im[i]);
     }
 
-    /** @return phase of echo i in degrees, (-180, 180] */
+    /**
+     * @param i echo index, 0-based
+     * @return phase of echo i in degrees, (-180, 180]
+     */
     public double phaseDeg(int i) {
         return Math.toDegrees(Math.atan2(im[i] + 0.0, re[i])); // + 0.0 turns -0.0 into 0.0: 180, not -180
     }
@@ -44,16 +57,19 @@ public record EchoTrain(List<String> labels, double[] timesMs, double[] re, doub
         return m;
     }
 
+    /** @return echo times in ms from the first RF pulse (a copy) */
     @Override
     public double[] timesMs() {
         return timesMs.clone();
     }
 
+    /** @return real parts (a copy) */
     @Override
     public double[] re() {
         return re.clone();
     }
 
+    /** @return imaginary parts (a copy) */
     @Override
     public double[] im() {
         return im.clone();

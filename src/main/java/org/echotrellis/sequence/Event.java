@@ -12,7 +12,14 @@ public sealed interface Event {
      *     at one instant
      */
     record Rf(double flipDeg, double phaseDeg, java.util.Optional<RfPulse> pulse) implements Event {
-        /** Defaults a missing pulse to empty. */
+        /**
+         * Defaults a missing pulse to empty.
+         *
+         * @param flipDeg nominal flip in degrees, [0, 360] (multiplied by the B1 scale when simulated)
+         * @param phaseDeg RF phase in degrees (axis of rotation in the transverse plane; 0 = x, 90 = y)
+         * @param pulse the pulse's envelope and duration when given (RF exposure); the rotation still acts
+         *     at one instant
+         */
         public Rf {
             pulse = pulse == null ? java.util.Optional.empty() : pulse;
         }

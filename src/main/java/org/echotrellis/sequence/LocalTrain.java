@@ -19,23 +19,36 @@ package org.echotrellis.sequence;
 public record LocalTrain(double weight, double excitationFlipDeg, double excitationPhaseDeg, double[] refocusFlipsDeg,
                          double[] refocusPhasesDeg, double[] echoPhaseRad) {
 
-    /** Copies. */
+    /**
+     * Copies.
+     *
+     * @param weight integration weight times the steady-state longitudinal magnetization before the excitation
+     * @param excitationFlipDeg local excitation flip
+     * @param excitationPhaseDeg local excitation phase
+     * @param refocusFlipsDeg local refocusing flips
+     * @param refocusPhasesDeg local refocusing phases φ'
+     * @param echoPhaseRad Ψ<sub>n</sub> per echo
+
+     */
     public LocalTrain {
         refocusFlipsDeg = refocusFlipsDeg.clone();
         refocusPhasesDeg = refocusPhasesDeg.clone();
         echoPhaseRad = echoPhaseRad.clone();
     }
 
+    /** @return local refocusing flips (a copy) */
     @Override
     public double[] refocusFlipsDeg() {
         return refocusFlipsDeg.clone();
     }
 
+    /** @return local refocusing phases φ' (a copy) */
     @Override
     public double[] refocusPhasesDeg() {
         return refocusPhasesDeg.clone();
     }
 
+    /** @return Ψ<sub>n</sub> per echo (a copy) */
     @Override
     public double[] echoPhaseRad() {
         return echoPhaseRad.clone();

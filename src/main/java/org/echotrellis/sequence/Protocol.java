@@ -27,7 +27,20 @@ public record Protocol(String name, String description, Tissue tissue, double b1
     /** Largest number of events in a protocol. */
     public static final int MAX_EVENTS = 100_000;
 
-    /** Validates and copies. */
+    /**
+     * Validates and copies.
+     *
+     * @param name protocol name
+     * @param description free text
+     * @param tissue default tissue
+     * @param b1Scale default flip-angle scale (1 = nominal)
+     * @param events the event list
+     * @param train the shorthand echo train, when the protocol was written in that form
+     * @param source where the protocol came from (file path or "built-in")
+     * @param acquisition pulse shapes, slice selection, repetition time and crushers of the shorthand train
+     *     ({@link Acquisition#none()} for event lists and for trains without those keys)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public Protocol {
         name = name == null ? "" : name;
         description = description == null ? "" : description;
@@ -203,12 +216,19 @@ public record Protocol(String name, String description, Tissue tissue, double b1
         return b.build();
     }
 
-    /** @return a copy simulating another tissue */
+    /**
+     * @param t the tissue to simulate (T1, T2, diffusivity)
+     * @return a copy simulating another tissue
+     */
     public Protocol withTissue(Tissue t) {
         return new Protocol(name, description, t, b1Scale, events, train, source, acquisition);
     }
 
-    /** @return a copy acquired another way (shorthand trains only, unless {@code a} is {@link Acquisition#none()}) */
+    /**
+     * @param a how the train is acquired (pulse shapes, slice, TR, crushers)
+     * @return a copy acquired another way (shorthand trains only, unless {@code a} is {@link Acquisition#none()})
+     * @throws org.echotrellis.InputException if {@code a} is not {@link Acquisition#none()} and the protocol is an event list, or its timing does not fit the train
+     */
     public Protocol withAcquisition(Acquisition a) {
         return new Protocol(name, description, tissue, b1Scale, events, train, source, a);
     }
@@ -221,7 +241,11 @@ public record Protocol(String name, String description, Tissue tissue, double b1
         return acquisition.isIdealFor(tissue);
     }
 
-    /** @return a copy with another B1 scale */
+    /**
+     * @param b1 transmit scale applied to every flip, &gt; 0 and at most 5
+     * @return a copy with another B1 scale
+     * @throws org.echotrellis.InputException if the scale is outside (0, 5]
+     */
     public Protocol withB1Scale(double b1) {
         return new Protocol(name, description, tissue, b1, events, train, source, acquisition);
     }

@@ -18,11 +18,19 @@ import org.echotrellis.InputFiles;
  * @param text the YAML or JSON document
  * @param source the name used in messages (usually the file path)
  * @param yaml true for YAML, false for JSON
+ * @serial exclude
  */
 public record ProtocolText(String text, String source, boolean yaml) implements Serializable {
     private static final long serialVersionUID = 1L;
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param text the YAML or JSON document
+     * @param source the name used in messages (usually the file path)
+     * @param yaml true for YAML, false for JSON
+     * @throws IllegalArgumentException if {@code text} is null
+     */
     public ProtocolText {
         if (text == null) {
             throw new IllegalArgumentException("protocol text must not be null");

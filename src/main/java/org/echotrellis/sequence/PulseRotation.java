@@ -22,7 +22,7 @@ import org.echotrellis.Checks;
  * <p>Units: time in pulse durations (T = 1), offsets in cycles per duration, so a shape's profile is
  * the same for every duration.
  */
-public final class PulseRotation {
+final class PulseRotation {
     /** Piecewise-constant steps of every simulated pulse (hard-pulse error about 1e-6 of a flip). */
     public static final int STEPS = 400;
 

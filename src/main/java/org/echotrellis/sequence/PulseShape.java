@@ -33,7 +33,13 @@ public record PulseShape(String label, double[] samples) {
     /** Largest accepted pulse-envelope file. */
     public static final long MAX_FILE_BYTES = 20_000_000;
 
-    /** Copies, normalises to peak magnitude 1 and checks that the envelope can produce a flip. */
+    /**
+     * Copies, normalises to peak magnitude 1 and checks that the envelope can produce a flip.
+     *
+     * @param label the shape as written, e.g. {@code sinc:4}
+     * @param samples envelope samples (copied and normalised to peak magnitude 1)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public PulseShape {
         Checks.require(samples != null && samples.length >= 2, "pulse shape " + label + " needs at least 2 samples");
         double peak = 0;
@@ -51,6 +57,7 @@ public record PulseShape(String label, double[] samples) {
                 + ": the envelope has (almost) zero area, so it cannot produce a flip");
     }
 
+    /** @return envelope samples (normalised to peak magnitude 1; a copy) */
     @Override
     public double[] samples() {
         return samples.clone();

@@ -15,7 +15,16 @@ import org.echotrellis.Checks;
  */
 public record RfPulse(String shape, double timeBandwidth, double durationMs, String file, PulseShape envelope) {
 
-    /** Validates. */
+    /**
+     * Validates.
+     *
+     * @param shape {@code rect}, {@code sinc}, {@code gauss} or {@code file}
+     * @param timeBandwidth time-bandwidth product for sinc and gauss (NaN otherwise)
+     * @param durationMs duration in ms (&gt; 0)
+     * @param file the envelope file as written in the protocol for {@code file} (empty otherwise)
+     * @param envelope the envelope samples
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public RfPulse {
         Checks.require(shape != null && (shape.equals("rect") || shape.equals("sinc") || shape.equals("gauss")
                 || shape.equals("file")), "pulse shape must be rect, sinc, gauss or file, got " + shape);

@@ -8,8 +8,9 @@ import org.echotrellis.epg.EpgProgram;
 import org.echotrellis.epg.GeneralEngine;
 
 /**
- * Runs a {@link Protocol} through the EPG engine: the real CPMG fast path when the protocol
- * qualifies ({@link Protocol#cpmg()}), the general complex engine otherwise; a protocol whose
+ * Runs a {@link Protocol} through the extended-phase-graph engine (Hennig 1988; Weigel 2015): the
+ * real CPMG fast path when the protocol qualifies ({@link Protocol#cpmg()}), the general complex
+ * engine otherwise; a protocol whose
  * acquisition is not ideal (slice-selective pulses, a repetition time, or diffusion with crushers) runs
  * through its {@link AcquisitionModel} (the whole acquisition: slice integral, steady state, diffusion).
  * Thread-safe: engines are kept one per thread; acquisition models are cached for the last few protocols.
@@ -55,7 +56,12 @@ public final class Simulator {
         return m;
     }
 
-    /** Simulates with the protocol's own tissue and B1 scale. */
+    /**
+     * Simulates with the protocol's own tissue and B1 scale.
+     *
+     * @param p the protocol; its tissue's T1 and T2 and its B1 scale are used
+     * @return the echo train of the protocol
+     */
     public static EchoTrain simulate(Protocol p) {
         return simulate(p, p.tissue().t1Ms(), p.tissue().t2Ms(), p.b1Scale());
     }

@@ -84,7 +84,11 @@ public final class TissuePresets {
         return List.copyOf(PRESETS.keySet());
     }
 
-    /** @return the source of a preset's values */
+    /**
+     * @param name preset name
+     * @return the source of a preset's values
+     * @throws org.echotrellis.InputException if no preset has that name
+     */
     public static String source(String name) {
         get(name);
         return SOURCES.get(name);

@@ -103,7 +103,7 @@ public final class BasisCache {
      * @param search refocusing angles
      * @return the cache
      */
-    public static BasisCache build(CpmgTrain train, double t1Ms, T2Grid grid, RefocusSearch search) {
+    static BasisCache build(CpmgTrain train, double t1Ms, T2Grid grid, RefocusSearch search) {
         return build(train, null, t1Ms, grid, search);
     }
 
@@ -358,7 +358,7 @@ public final class BasisCache {
      * @param angleDeg refocusing angle in degrees (clamped to the search range)
      * @return echoes × bins, column-major (a[j·echoes + i] = echo i+1 of bin j)
      */
-    public double[] basis(double angleDeg) {
+    double[] basis(double angleDeg) {
         double[] out = new double[echoes * grid.bins()];
         basisAt(angleDeg, out);
         return out;

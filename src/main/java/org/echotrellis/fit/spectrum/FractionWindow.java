@@ -10,6 +10,7 @@ import org.echotrellis.Checks;
  *
  * @param loMs lower edge in ms
  * @param hiMs upper edge in ms
+ * @serial exclude
  */
 public record FractionWindow(double loMs, double hiMs) implements java.io.Serializable {
 
@@ -31,7 +32,13 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
 
     private static final double EDGE = 1e-9;
 
-    /** Validates LO &lt; HI, both finite and positive. */
+    /**
+     * Validates LO &lt; HI, both finite and positive.
+     *
+     * @param loMs lower edge in ms
+     * @param hiMs upper edge in ms
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public FractionWindow {
         Checks.positive("fraction_window_ms LO", loMs, null);
         Checks.positive("fraction_window_ms HI", hiMs, null);
@@ -70,7 +77,7 @@ public record FractionWindow(double loMs, double hiMs) implements java.io.Serial
      * @param grid the T2 grid
      * @throws org.echotrellis.InputException naming {@code --fraction-window-ms}
      */
-    public void checkWithin(T2Grid grid) {
+    void checkWithin(T2Grid grid) {
         String w = label();
         Checks.require(loMs >= grid.minMs() * (1 - EDGE),
                 "fraction_window_ms " + w + " starts below the T2 grid (" + grid.minMs() + " ms); allowed "

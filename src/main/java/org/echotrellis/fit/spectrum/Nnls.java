@@ -24,7 +24,7 @@ import java.util.Arrays;
  * <p>Not thread-safe: one instance per thread. Workspaces grow to the largest n seen and are
  * reused; no allocation per solve after the first.
  */
-public final class Nnls {
+final class Nnls {
 
     /** Solve finished with the Kuhn–Tucker conditions met. */
     public static final int CONVERGED = 0;

@@ -17,13 +17,21 @@ import org.echotrellis.InputException;
  * @param loDeg smallest angle in degrees, (0, 360]
  * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 360
  * @param count number of equally spaced coarse angles (1 = fixed angle loDeg, else ≥ 3)
+ * @serial exclude
  */
 public record RefocusSearch(double loDeg, double hiDeg, int count) implements java.io.Serializable {
 
     /** Largest spacing of the default coarse angles in degrees. */
     public static final double COARSE_STEP_DEG = 15;
 
-    /** Validates the range. */
+    /**
+     * Validates the range.
+     *
+     * @param loDeg smallest angle in degrees, (0, 360]
+     * @param hiDeg largest angle in degrees, ≥ loDeg, ≤ 360
+     * @param count number of equally spaced coarse angles (1 = fixed angle loDeg, else ≥ 3)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public RefocusSearch {
         Checks.inRange("refocus_search_deg LO", loDeg, 1e-6, 360, null);
         Checks.inRange("refocus_search_deg HI", hiDeg, loDeg, 360, null);

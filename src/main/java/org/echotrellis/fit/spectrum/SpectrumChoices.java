@@ -21,6 +21,7 @@ import org.echotrellis.sequence.Protocol;
  * @param regularisation the regularisation, or null for the default (misfit)
  * @param misfitIncrease the misfit target factor, or NaN for {@link SpectrumOptions#misfitIncreaseFor}
  * @param search the refocusing-angle search (or fixed angle), or null for the protocol's default
+ * @serial exclude
  */
 public record SpectrumChoices(double t1Ms, List<FractionWindow> windows, double t2MinMs, double t2MaxMs, int t2Bins,
                               Regularisation regularisation, double misfitIncrease, RefocusSearch search)
@@ -30,7 +31,19 @@ public record SpectrumChoices(double t1Ms, List<FractionWindow> windows, double 
     /** Every choice left to the protocol. */
     public static final SpectrumChoices PROTOCOL_DEFAULTS = new SpectrumChoices(Double.NaN, List.of());
 
-    /** Copies; checks what can be checked before a protocol is known. */
+    /**
+     * Copies; checks what can be checked before a protocol is known.
+     *
+     * @param t1Ms fixed T1 of the basis in ms, or NaN for the protocol tissue's T1
+     * @param windows T2 windows whose fractions are reported, or empty for the short-T2 window of the grid
+     * @param t2MinMs shortest T2 of the grid in ms, or NaN for the protocol's default
+     * @param t2MaxMs longest T2 of the grid in ms, or NaN for the protocol's default
+     * @param t2Bins grid points, or 0 for {@link T2Grid#BINS_PER_DECADE} per decade of the range
+     * @param regularisation the regularisation, or null for the default (misfit)
+     * @param misfitIncrease the misfit target factor, or NaN for {@link SpectrumOptions#misfitIncreaseFor}
+     * @param search the refocusing-angle search (or fixed angle), or null for the protocol's default
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public SpectrumChoices {
         windows = windows == null ? List.of() : List.copyOf(windows);
         Checks.require(t2Bins == 0 || t2Bins >= 2 && t2Bins <= T2Grid.MAX_BINS,

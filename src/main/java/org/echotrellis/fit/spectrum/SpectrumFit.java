@@ -3,7 +3,9 @@ package org.echotrellis.fit.spectrum;
 import java.util.List;
 
 /**
- * The T2 spectrum of one decay and its derived numbers. Arrays are copied in and out.
+ * The T2 spectrum of one decay and its derived numbers, as fitted by {@link SpectrumFitter}
+ * (regularised NNLS, Whittall &amp; MacKay 1989, on EPG bases with the refocusing angle estimated as
+ * in Prasloski et al. 2012). Arrays are copied in and out.
  *
  * @param name               label of the decay (table row or voxel)
  * @param t2Ms               T2 grid in ms
@@ -30,7 +32,22 @@ public record SpectrumFit(String name, double[] t2Ms, double[] amplitude, double
      */
     public record Window(FractionWindow window, double fraction, double gmT2Ms) { }
 
-    /** Copies arrays and the list. */
+    /**
+     * Copies arrays and the list.
+     *
+     * @param name               label of the decay (table row or voxel)
+     * @param t2Ms               T2 grid in ms
+     * @param amplitude          spectrum amplitude per bin (signal units; Σ ≈ extrapolated signal at t = 0)
+     * @param refocusDeg         refocusing angle used (fitted or fixed), degrees
+     * @param chi2               residual sum of squares of the final spectrum
+     * @param chi2Unregularised  residual sum of squares of the unregularised spectrum at the same angle
+     * @param mu                 Tikhonov weight (0 = none)
+     * @param snr                SNR estimate: max fitted echo / residual noise estimate
+
+     * @param gmT2Ms             geometric-mean T2 of the whole spectrum in ms
+     * @param windows            fraction and geometric-mean T2 per requested window
+     * @param status             a {@link SpectrumStatus} code
+     */
     public SpectrumFit {
         t2Ms = t2Ms.clone();
         amplitude = amplitude.clone();

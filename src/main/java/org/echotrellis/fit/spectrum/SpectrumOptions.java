@@ -15,6 +15,7 @@ import org.echotrellis.sequence.Protocol;
  * @param misfitIncrease χ²(μ)/χ²(0) target of {@link Regularisation#MISFIT} (default 1 + 1/(4·echoes))
  * @param search         refocusing angles searched (or one fixed angle)
  * @param windows        T2 windows whose fractions are reported (at least one)
+ * @serial exclude
  */
 public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularisation, double misfitIncrease,
                               RefocusSearch search, List<FractionWindow> windows)
@@ -66,7 +67,18 @@ public record SpectrumOptions(T2Grid grid, double t1Ms, Regularisation regularis
         return 1 + 0.25 / echoes;
     }
 
-    /** Validates; every window must lie within the grid, and no window may be given twice. */
+    /**
+     * Validates; every window must lie within the grid, and no window may be given twice.
+     *
+     * @param grid           T2 grid
+     * @param t1Ms           fixed T1 of the basis in ms (default: the protocol tissue's T1)
+     * @param regularisation how μ is chosen
+     * @param misfitIncrease χ²(μ)/χ²(0) target of {@link Regularisation#MISFIT} (default 1 + 1/(4·echoes))
+
+     * @param search         refocusing angles searched (or one fixed angle)
+     * @param windows        T2 windows whose fractions are reported (at least one)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public SpectrumOptions {
         Checks.require(grid != null && regularisation != null && search != null && windows != null,
                 "spectrum options must not be null");

@@ -18,6 +18,7 @@ import org.echotrellis.Checks;
  * @param minMs shortest T2 in ms (first bin)
  * @param maxMs longest T2 in ms (last bin)
  * @param bins number of grid points (≥ 2)
+ * @serial exclude
  */
 public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Serializable {
 
@@ -45,7 +46,14 @@ public record T2Grid(double minMs, double maxMs, int bins) implements java.io.Se
         return new T2Grid(lo, hi, Math.max(2, Math.min(MAX_BINS, bins)));
     }
 
-    /** Validates the grid; messages name the parameters by their keys ({@code t2_min_ms}, ...). */
+    /**
+     * Validates the grid; messages name the parameters by their keys ({@code t2_min_ms}, ...).
+     *
+     * @param minMs shortest T2 in ms (first bin)
+     * @param maxMs longest T2 in ms (last bin)
+     * @param bins number of grid points (≥ 2)
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public T2Grid {
         Checks.positive("t2_min_ms", minMs, null);
         Checks.positive("t2_max_ms", maxMs, null);

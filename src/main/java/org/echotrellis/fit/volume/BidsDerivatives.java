@@ -56,7 +56,21 @@ public final class BidsDerivatives {
     public record Settings(Optional<FitOptions> fit, Optional<org.echotrellis.fit.spectrum.SpectrumChoices> spectrum,
                            Optional<Path> b1Override, double b1OverrideFactor, Optional<String> mask, float outsideMask,
                            int threads, boolean force, String commandLine) {
-        /** Checks that at least one analysis is requested. */
+        /**
+         * Checks that at least one analysis is requested.
+         *
+         * @param fit the fit settings, or empty for no fit
+         * @param spectrum the spectrum choices (resolved per collection protocol), or empty for no spectrum
+         * @param b1Override a B1 map for every collection instead of the ones found in {@code fmap/}
+         * @param b1OverrideFactor factor from the override's values to a flip-angle scale (0.01 for percent)
+         * @param mask the mask choice of {@link BidsImages#find} ({@value BidsImages#MASK} or a path pattern),
+         *        or empty to fit every voxel
+         * @param outsideMask value of the maps outside the mask (NaN, or 0 for tools that dislike NaN)
+         * @param threads worker threads
+         * @param force replace existing outputs
+         * @param commandLine the command line, for provenance
+         * @throws IllegalArgumentException if neither fit nor spectrum settings are given
+         */
         public Settings {
             if (fit.isEmpty() && spectrum.isEmpty()) {
                 throw new IllegalArgumentException("BIDS derivatives need fit or spectrum settings");

@@ -27,6 +27,7 @@ import org.echotrellis.sequence.Protocol;
  * @param monoOffset fit a constant offset in the mono-exponential model
  * @param monoSkipFirst drop the first echo in the mono-exponential model
  * @param compareMono also fit the mono-exponential model (EPG model only; map {@code mono_t2_ms})
+ * @serial exclude
  */
 public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2MaxMs, double b1Min, double b1Max,
                          boolean fold, double noiseSigma, boolean noiseFromBackground, boolean monoOffset,
@@ -37,7 +38,24 @@ public record FitOptions(FitModel model, double t1Ms, double t2MinMs, double t2M
     public static final FitOptions DEFAULT = new FitOptions(FitModel.EPG, Double.NaN, 1, 5000, 0.3, 1.7, true, Double.NaN,
             false, false, false, false);
 
-    /** Validates the values that need no protocol (parameters are named by their summary keys). */
+    /**
+     * Validates the values that need no protocol (parameters are named by their summary keys).
+     *
+     * @param model the decay model
+     * @param t1Ms fixed T1 in ms (may be +Infinity), or NaN for the protocol tissue's T1
+     * @param t2MinMs lower T2 bound in ms
+     * @param t2MaxMs upper T2 bound in ms
+     * @param b1Min lower B1 bound
+     * @param b1Max upper B1 bound before folding
+     * @param fold report the folded B1 for constant trains (see {@link FitSettings#effectiveB1Max()})
+     * @param noiseSigma channel noise σ for the Rician mean model, NaN for plain least squares
+     * @param noiseFromBackground estimate σ from the voxels outside the mask (volumes with a mask only;
+     *        {@code noiseSigma} is then ignored)
+     * @param monoOffset fit a constant offset in the mono-exponential model
+     * @param monoSkipFirst drop the first echo in the mono-exponential model
+     * @param compareMono also fit the mono-exponential model (EPG model only; map {@code mono_t2_ms})
+     * @throws org.echotrellis.InputException if a value is not allowed; the message names it, its value and what is allowed
+     */
     public FitOptions {
         Checks.require(model != null, "model must be epg or mono, got null");
         Checks.require(Double.isNaN(t1Ms) || t1Ms > 0, "t1_ms must be > 0 (or NaN for the protocol tissue's), got " + t1Ms);

@@ -1,7 +1,7 @@
 package org.echotrellis.fit.volume;
 
 /** The unit of each map a volume analysis writes, for NIfTI {@code descrip} fields and sidecars. */
-public final class MapUnits {
+final class MapUnits {
     private MapUnits() { }
 
     /**

@@ -35,7 +35,7 @@ public final class SpectrumNames {
      * @param v a number
      * @return the number as a file-name token: 10 → "10", 12.5 → "12p5"
      */
-    public static String tag(double v) {
+    static String tag(double v) {
         String s = v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
         return s.replace('.', 'p');
     }

@@ -14,12 +14,22 @@ import org.echotrellis.sequence.ProtocolText;
  * @param kind fit or spectrum
  * @param fit the fit settings ({@link VolumeAnalysis.Kind#FIT}; null otherwise)
  * @param spectrum the spectrum settings ({@link VolumeAnalysis.Kind#SPECTRUM}; null otherwise)
+ * @serial exclude
  */
 public record VolumeRequest(ProtocolText protocol, VolumeAnalysis.Kind kind, FitOptions fit,
                             SpectrumOptions spectrum) implements Serializable {
     private static final long serialVersionUID = 1L;
 
-    /** Validates that the settings of the kind are present. */
+    /**
+     * Validates that the settings of the kind are present.
+     *
+     * @param protocol the protocol document
+     * @param kind fit or spectrum
+     * @param fit the fit settings ({@link VolumeAnalysis.Kind#FIT}; null otherwise)
+     * @param spectrum the spectrum settings ({@link VolumeAnalysis.Kind#SPECTRUM}; null otherwise)
+     * @throws IllegalArgumentException if the protocol or the kind is null, or the settings of the
+     *         requested kind are missing
+     */
     public VolumeRequest {
         if (protocol == null || kind == null) {
             throw new IllegalArgumentException("protocol and kind must not be null");

@@ -18,7 +18,8 @@ import org.echotrellis.InputException;
 import org.echotrellis.io.Json;
 
 /**
- * Finds the multi-echo spin-echo collections of a BIDS dataset (BIDS specification: suffix
+ * Finds the multi-echo spin-echo collections of a BIDS dataset (Brain Imaging Data Structure,
+ * Gorgolewski et al., Sci Data 3:160044, 2016; BIDS specification: suffix
  * {@code MESE}, one file per echo with the {@code echo-<n>} entity) under
  * {@code sub-<L>/[ses-<S>/]anat/}, merges each file's JSON sidecars by the inheritance principle
  * (every {@code *_MESE.json} from the dataset root down to the file's directory whose entities are

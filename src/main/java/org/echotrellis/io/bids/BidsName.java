@@ -13,9 +13,15 @@ import java.util.Optional;
  * @param suffix the suffix
  * @param extension the extension with its leading dot
  */
-public record BidsName(Map<String, String> entities, String suffix, String extension) {
+record BidsName(Map<String, String> entities, String suffix, String extension) {
 
-    /** Copies. */
+    /**
+     * Copies.
+     *
+     * @param entities the entities in file order
+     * @param suffix the suffix
+     * @param extension the extension with its leading dot
+     */
     public BidsName {
         entities = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(entities));
     }

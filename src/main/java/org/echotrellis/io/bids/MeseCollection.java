@@ -25,7 +25,18 @@ public record MeseCollection(String subject, Optional<String> session, Map<Strin
                              List<Path> echoFiles, List<ObjectNode> sidecars, Optional<Path> b1Map,
                              ObjectNode b1Sidecar) {
 
-    /** Copies. */
+    /**
+     * Copies.
+     *
+     * @param subject participant label (without {@code sub-})
+     * @param session session label, or empty
+     * @param entities the entities that name the collection (sub, ses, acq, run … without echo), in order
+     * @param echoFiles the per-echo images, echo 1 first
+     * @param sidecars the merged sidecar of each echo file, same order
+     * @param b1Map the {@code _TB1map} of the subject/session's {@code fmap/}, if one was found
+
+     * @param b1Sidecar the merged sidecar of that B1 map (empty object if none)
+     */
     public MeseCollection {
         entities = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(entities));
         echoFiles = List.copyOf(echoFiles);

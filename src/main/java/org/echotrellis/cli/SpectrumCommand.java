@@ -108,6 +108,10 @@ final class SpectrumCommand implements Callable<Integer> {
             description = "3-D B1 map (same grid, flip-angle scale) for image input: fixes each voxel's refocusing angle, no search.")
     Path b1Map;
 
+    @Option(names = "--b1-map-units", paramLabel = "U", defaultValue = "scale",
+            description = "Values of --b1-map: scale (1 = nominal) or percent (100 = nominal) (default: ${DEFAULT-VALUE}).")
+    FitCommand.B1Units b1MapUnits;
+
     @Option(names = "--fraction-window-ms", paramLabel = "LO:HI",
             description = "T2 window whose fraction is reported (repeatable; default: shortest grid T2 to 40 ms).")
     List<String> windows = new ArrayList<>();
@@ -157,7 +161,8 @@ final class SpectrumCommand implements Callable<Integer> {
             Checks.require(out != null, "--out DIR is required for image input");
             int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
             Checks.inRange("--threads", n, 1, 1024, null);
-            var res = SpectrumVolumes.run(data, mask, b1Map, analysis, n, out, force,
+            var res = SpectrumVolumes.run(data, mask, b1Map, b1MapUnits == FitCommand.B1Units.percent ? 0.01 : 1,
+                    analysis, n, out, force,
                     CliChecks.outsideMaskValue(outsideMask), settings,
                     StderrProgressBar.onTerminal(spec.commandLine().getErr(), quiet), format == Format.json,
                     spec.commandLine().getOut(), java.util.Arrays.asList(data, mask, protocol, b1Map)).result();
@@ -222,7 +227,7 @@ final class SpectrumCommand implements Callable<Integer> {
         s.put("provenance", CliChecks.provenance(spec, protocol, data, mask, b1Map));
         s.put("t1_source", t1Ms != null ? "--t1-ms" : "protocol tissue");
         if (b1Map != null) {
-            s.put("refocus", Map.of("from_b1_map", b1Map.toString()));
+            s.put("refocus", Map.of("from_b1_map", b1Map.toString(), "b1_map_units", b1MapUnits.name()));
         }
         return s;
     }

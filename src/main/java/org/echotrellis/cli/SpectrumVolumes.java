@@ -38,7 +38,8 @@ final class SpectrumVolumes {
 
     private SpectrumVolumes() { }
 
-    static VolumeMaps run(Path data, Path mask, Path b1Map, VolumeAnalysis analysis, int threads, Path out, boolean force,
+    static VolumeMaps run(Path data, Path mask, Path b1Map, double b1Factor, VolumeAnalysis analysis, int threads,
+                          Path out, boolean force,
                           float outsideMask, Map<String, Object> settings, ProgressReporter progress,
                           boolean json, PrintWriter stdout, List<Path> inputs) throws Exception {
         if (Files.exists(out) && !Files.isDirectory(out)) {
@@ -51,7 +52,7 @@ final class SpectrumVolumes {
         Nifti.checkOnGrid(b1Map, grid, "--b1-map");
         try (OutputSet set = CliChecks.outputSet(out, force, inputs); NiftiInput in = Nifti.open(data)) {
             Optional<NiftiImage> m = mask == null ? Optional.empty() : Optional.of(Nifti.read(mask));
-            Optional<NiftiImage> b1 = b1Map == null ? Optional.empty() : Optional.of(Nifti.read(b1Map));
+            Optional<NiftiImage> b1 = b1Map == null ? Optional.empty() : Optional.of(Nifti.read(b1Map).times(b1Factor));
             VolumeJob job = CliChecks.volumeJob(in, m, b1, threads);
             org.echotrellis.io.bids.BidsProtocol.checkSeriesSidecar(data, analysis.protocol().echoTimesMs());
             set.plan(plannedFiles(analysis, o));

@@ -301,6 +301,50 @@ class BidsCommandTest {
         assertEquals(Files.readString(protocol), prov.get("protocol").asText());
     }
 
+    @Test
+    void spectrumTakesAB1MapInPercentOrAsAScale() throws IOException {
+        double[][] d = decays(true);
+        double[] series = new double[NV * ECHOES];
+        double[] scale = new double[NV];
+        double[] percent = new double[NV];
+        for (int v = 0; v < NV; v++) {
+            scale[v] = b1(v);
+            percent[v] = 100 * b1(v);
+            for (int k = 0; k < ECHOES; k++) {
+                series[k * NV + v] = d[v][k];
+            }
+        }
+        Path s = dir.resolve("series.nii.gz");
+        Nifti.write(s, NiftiHeader.create(NiftiDatatype.FLOAT32, NX, NY, NZ, ECHOES).withAffine(AFFINE, 1), series, false);
+        NiftiHeader h = NiftiHeader.create(NiftiDatatype.FLOAT32, NX, NY, NZ).withAffine(AFFINE, 1);
+        Nifti.write(dir.resolve("b1-scale.nii.gz"), h, scale, false);
+        Nifti.write(dir.resolve("b1-percent.nii.gz"), h, percent, false);
+        Path protocol = dir.resolve("p.yaml");
+        Files.writeString(protocol, "name: invented\ntrain:\n  echoes: 24\n  echo_spacing_ms: 10\n  refocusing:\n    flip_deg: 180\n");
+        CliRun asScale = CliRun.of("spectrum", s.toString(), "--protocol", protocol.toString(), "--out",
+                dir.resolve("scale").toString(), "--b1-map", dir.resolve("b1-scale.nii.gz").toString(), "--quiet",
+                "--threads", "2");
+        assertEquals(0, asScale.code(), asScale.err());
+        CliRun asPercent = CliRun.of("spectrum", s.toString(), "--protocol", protocol.toString(), "--out",
+                dir.resolve("percent").toString(), "--b1-map", dir.resolve("b1-percent.nii.gz").toString(),
+                "--b1-map-units", "percent", "--quiet", "--threads", "2");
+        assertEquals(0, asPercent.code(), asPercent.err());
+        String map;
+        try (var files = Files.list(dir.resolve("scale"))) {
+            map = files.map(f -> f.getFileName().toString()).filter(n -> n.startsWith("fraction_") && n.endsWith(".nii.gz"))
+                    .findFirst().orElseThrow();
+        }
+        NiftiImage a = Nifti.read(dir.resolve("scale").resolve(map));
+        NiftiImage b = Nifti.read(dir.resolve("percent").resolve(map));
+        double sum = 0;
+        for (int v = 0; v < NV; v++) {
+            assertEquals(a.get(v), b.get(v), 1e-6, "percent map / 100 = the scale map: voxel " + v);
+            sum += a.get(v);
+        }
+        // two pools, 15 % at T2 = 20 ms, refocusing angles fixed by the map (no search)
+        assertEquals(0.15, sum / NV, 0.03);
+    }
+
     private static byte[] sha256(Path f) throws IOException {
         try {
             return java.security.MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(f));

@@ -178,7 +178,9 @@ final class ImageCommand implements Callable<Integer> {
         ImageReport report = CliChecks.asOptions(() -> FseImaging.analyse(p, o, ts, noiseSd == null ? Double.NaN : noiseSd),
                 "noise_sd");
         PrintWriter w = spec.commandLine().getOut();
-        w.print(format == Format.json ? Json.write(ImageOutputs.json(report)) : ImageOutputs.table(report, p.name()));
+        Map<String, Object> json = new LinkedHashMap<>(ImageOutputs.json(report));
+        json.put("provenance", CliChecks.provenance(spec, input.file, builtin || !figures ? null : Path.of(phantom)));
+        w.print(format == Format.json ? Json.write(json) : ImageOutputs.table(report, p.name()));
         w.flush();
         if (figures) {
             Phantom ph = labelImage == null ? Phantom.builtin(o.lines(), ts.size()) : fromFile(labelImage, mapping, ts);
@@ -197,7 +199,7 @@ final class ImageCommand implements Callable<Integer> {
             }
         }
         if (out != null) {
-            AtomicFiles.writeString(out.resolve(JSON_FILE), Json.write(ImageOutputs.json(report)), force);
+            AtomicFiles.writeString(out.resolve(JSON_FILE), Json.write(json), force);
         }
         htmlReport.settings(CommandReports.acquisition(p));
         htmlReport.write("image: " + p.name(), force, r -> CommandReports.image(r, report, p.name()));

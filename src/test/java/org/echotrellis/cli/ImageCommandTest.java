@@ -37,7 +37,9 @@ class ImageCommandTest {
                 "--tissue", "csf:4300:1900", "--noise-sd", "0.02", "--format", "json");
         assertEquals(0, r.code(), r.err());
         JsonNode root = new ObjectMapper().readTree(r.out());
-        assertEquals(List.of("tissues", "pairs"), keys(root));
+        // the contract keys, then the provenance block every JSON output carries (as simulate and pathways do)
+        assertEquals(List.of("tissues", "pairs", "provenance"), keys(root));
+        assertTrue(root.get("provenance").get("command_line").asText().startsWith("echotrellis image "));
         JsonNode t = root.get("tissues").get(0);
         assertEquals(List.of("name", "effective_te_ms", "center_signal", "psf_fwhm_px", "psf_peak", "psf_sidelobe",
                 "weights"), keys(t));

@@ -41,22 +41,22 @@ final class SpectrumTables {
             List<SpectrumFit> fits = fit(t, cache, o);
             if (set != null) {
                 AtomicFiles.writeString(out.resolve("spectra.csv"), csv(fits, o), force);
-                AtomicFiles.writeString(out.resolve("spectra.json"), json(fits, settings), force);
+                AtomicFiles.writeString(out.resolve("spectra.json"), json(fits, settings, null), force);
                 for (String ext : new String[] {"png", "svg"}) {
                     ChartFiles.write(plot(fits, o, data.getFileName().toString()), out.resolve("spectrum." + ext),
                             900, 560, force);
                 }
                 set.commit();
             }
-            print(fits, o, format, stdout);
+            print(fits, o, format, stdout, settings.get("provenance"));
             return fits;
         }
     }
 
-    private static void print(List<SpectrumFit> fits, SpectrumOptions o, String format, PrintWriter stdout)
-            throws Exception {
+    private static void print(List<SpectrumFit> fits, SpectrumOptions o, String format, PrintWriter stdout,
+            Object provenance) throws Exception {
         switch (format) {
-            case "json": stdout.print(json(fits, null)); break;
+            case "json": stdout.print(json(fits, null, provenance)); break;
             case "csv": stdout.print(csv(fits, o)); break;
             default: stdout.print(text(fits, o));
         }
@@ -105,7 +105,12 @@ final class SpectrumTables {
         return SpectrumPlot.chart("T2 spectrum", sub, o.grid().t2Ms(), names, amps, ws);
     }
 
-    static String json(List<SpectrumFit> fits, Map<String, Object> settings) throws Exception {
+    /**
+     * @param fits the fitted decays
+     * @param settings the run's settings (with its provenance) for the file, or null
+     * @param provenance a provenance block on its own for stdout, or null
+     */
+    static String json(List<SpectrumFit> fits, Map<String, Object> settings, Object provenance) throws Exception {
         ObjectNode root = Json.MAPPER.createObjectNode();
         ArrayNode arr = root.putArray("spectra");
         for (SpectrumFit f : fits) {
@@ -137,6 +142,9 @@ final class SpectrumTables {
         }
         if (settings != null) {
             root.set("settings", Json.MAPPER.valueToTree(settings));
+        }
+        if (provenance != null) {
+            root.set("provenance", Json.MAPPER.valueToTree(provenance));
         }
         return Json.MAPPER.writeValueAsString(root) + "\n";
     }

@@ -63,6 +63,8 @@ class SpectrumCommandTest {
         assertEquals(0, r.code(), r.err());
         JsonNode spectra = Json.MAPPER.readTree(r.out()).get("spectra");
         assertEquals(2, spectra.size());
+        JsonNode prov = Json.MAPPER.readTree(r.out()).get("provenance");  // on stdout as in every JSON output
+        assertTrue(prov.get("command_line").asText().startsWith("echotrellis spectrum "), String.valueOf(prov));
         JsonNode s = spectra.get(0);
         assertEquals("voxel_a", s.get("name").asText());
         // default grid from the protocol: 10 ms (first echo) to 4 × 320 ms, 15 bins per decade → 33 bins

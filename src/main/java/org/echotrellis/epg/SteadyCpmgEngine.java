@@ -37,6 +37,7 @@ public final class SteadyCpmgEngine {
     private final double[] ma;
     private final double[] mb;
     private final double[] work;
+    private final double[] rot = new double[4];
 
     /** @param lanes trains in lock-step (1 to 64) */
     public SteadyCpmgEngine(int lanes) {
@@ -90,6 +91,10 @@ public final class SteadyCpmgEngine {
         double esp = train.echoSpacingMs();
         double exc = Math.toRadians(train.excitationFlipDeg());
         boolean tr = Double.isFinite(repetitionMs);
+        if (nl == 1) {
+            runSingle(train, dPre, dPost, dZ, repetitionMs, t1Ms[0], t2Ms[0], b1[0], out);
+            return;
+        }
         for (int l = 0; l < nl; l++) {
             int s = l < count ? l : 0;
             e2h[l] = Math.exp(-0.5 * esp / t2Ms[s]);
@@ -122,6 +127,137 @@ public final class SteadyCpmgEngine {
             work[l] = ma[l] * Math.sin(b1[s] * exc);
         }
         family(train, true, dPre, dPost, dZ, b1, count, work, null, out);
+    }
+
+    /*
+     * One train (a one-lane engine): the same arithmetic in the same order as the lanes, so the results
+     * are bit-identical, in scalars; the two even-family runs of the steady state go in one pass over
+     * two interleaved state vectors (a: from cos(excitation) without recovery; b: from 0 with it), so
+     * the per-pulse rotation and relaxation factors are shared.
+     */
+    private void runSingle(CpmgTrain train, double[] dPre, double[] dPost, double[] dZ, double repetitionMs,
+                           double t1Ms, double t2Ms, double b1, double[] out) {
+        final int n = train.echoes();
+        final double esp = train.echoSpacingMs();
+        final double exc = Math.toRadians(train.excitationFlipDeg());
+        final double e2 = Math.exp(-0.5 * esp / t2Ms);
+        final double e1 = Math.exp(-0.5 * esp / t1Ms);
+        final int kmax = 2 * n + 2;
+        final int base0 = kmax + 2 * n + 1;
+        final int len = base0 + kmax + 2;
+        if (f.length < 2 * len) {
+            f = new double[2 * len];
+            z = new double[2 * (kmax + 2)];
+        }
+        final double[] fs = f;
+        final double[] zs = z;
+        final int off = kmax;
+        double m = 1;
+        if (Double.isFinite(repetitionMs)) {
+            Arrays.fill(fs, 0, 2 * len, 0.0);
+            Arrays.fill(zs, 0, 2 * (kmax + 2), 0.0);
+            zs[0] = Math.cos(b1 * exc);
+            final double recB = 1 - e1;
+            int base = base0;
+            double lastFlip = Double.NaN;
+            double c2 = 0;
+            double s2 = 0;
+            double sn = 0;
+            double cs = 0;
+            for (int p = 1; p <= n; p++) {
+                int bound = Math.min(2 * p - 2, 2 * (n - p));
+                base--;
+                double flip = Math.toRadians(train.refocusFlipDeg(p - 1)) * train.refocusSign(p - 1);
+                if (flip != lastFlip) {
+                    rotation(b1 * flip);
+                    c2 = rot[0];
+                    s2 = rot[1];
+                    sn = rot[2];
+                    cs = rot[3];
+                    lastFlip = flip;
+                }
+                int i0 = 2 * base;
+                double g0In = e2 * dPre[-1 + off];
+                double g0Out = e2 * dPost[off];
+                double ua = fs[i0] * g0In;
+                double ra = e1 * zs[0];
+                fs[i0] = (cs * ua - sn * ra) * g0Out;
+                zs[0] = e1 * (sn * ua + cs * ra);
+                double ub = fs[i0 + 1] * g0In;
+                double rb = e1 * zs[1] + recB;
+                fs[i0 + 1] = (cs * ub - sn * rb) * g0Out;
+                zs[1] = e1 * (sn * ub + cs * rb) + recB;
+                for (int k = 2; k <= bound; k += 2) {
+                    int ip = 2 * (base + k);
+                    int im = 2 * (base - k);
+                    int iz = 2 * k;
+                    double gpIn = e2 * dPre[k - 1 + off];
+                    double gmIn = e2 * dPre[-k - 1 + off];
+                    double gpOut = e2 * dPost[k + off];
+                    double gmOut = e2 * dPost[-k + off];
+                    double ez = e1 * dZ[k];
+                    double u = fs[ip] * gpIn;
+                    double v = fs[im] * gmIn;
+                    double r = zs[iz] * ez;
+                    fs[ip] = (c2 * u - s2 * v - sn * r) * gpOut;
+                    fs[im] = (-s2 * u + c2 * v - sn * r) * gmOut;
+                    zs[iz] = (0.5 * sn * (u + v) + cs * r) * ez;
+                    u = fs[ip + 1] * gpIn;
+                    v = fs[im + 1] * gmIn;
+                    r = zs[iz + 1] * ez;
+                    fs[ip + 1] = (c2 * u - s2 * v - sn * r) * gpOut;
+                    fs[im + 1] = (-s2 * u + c2 * v - sn * r) * gmOut;
+                    zs[iz + 1] = (0.5 * sn * (u + v) + cs * r) * ez;
+                }
+                base--;
+            }
+            double e = Math.exp(-(repetitionMs - n * esp) / t1Ms);
+            m = (zs[1] * e + 1 - e) / (1 - zs[0] * e);
+        }
+        Arrays.fill(fs, 0, len, 0.0);
+        Arrays.fill(zs, 0, kmax + 2, 0.0);
+        int base = base0;
+        fs[base] = m * Math.sin(b1 * exc);
+        double lastFlip = Double.NaN;
+        double c2 = 0;
+        double s2 = 0;
+        double sn = 0;
+        double cs = 0;
+        for (int p = 1; p <= n; p++) {
+            int bound = Math.min(2 * p - 1, 2 * (n - p) + 1);
+            base--;
+            double flip = Math.toRadians(train.refocusFlipDeg(p - 1)) * train.refocusSign(p - 1);
+            if (flip != lastFlip) {
+                rotation(b1 * flip);
+                c2 = rot[0];
+                s2 = rot[1];
+                sn = rot[2];
+                cs = rot[3];
+                lastFlip = flip;
+            }
+            for (int k = 1; k <= bound; k += 2) {
+                int ip = base + k;
+                int im = base - k;
+                double ez = e1 * dZ[k];
+                double x = fs[ip] * (e2 * dPre[k - 1 + off]);
+                double y = fs[im] * (e2 * dPre[-k - 1 + off]);
+                double q = zs[k] * ez;
+                fs[ip] = (c2 * x + s2 * y + sn * q) * (e2 * dPost[k + off]);
+                fs[im] = (s2 * x + c2 * y - sn * q) * (e2 * dPost[-k + off]);
+                zs[k] = (cs * q - 0.5 * sn * (x - y)) * ez;
+            }
+            base--;
+            out[p - 1] = fs[base];
+        }
+    }
+
+    /** cos²(a/2), sin²(a/2), sin a, cos a of a refocusing rotation by a into {@link #rot}, as the lanes compute them. */
+    private void rotation(double a) {
+        double h = Math.cos(0.5 * a);
+        rot[0] = h * h;
+        rot[1] = 1 - h * h;
+        rot[2] = Math.sin(a);
+        rot[3] = Math.cos(a);
     }
 
     private void family(CpmgTrain train, boolean odd, double[] dPre, double[] dPost, double[] dZ, double[] b1,

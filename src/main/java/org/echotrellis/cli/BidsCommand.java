@@ -173,15 +173,9 @@ final class BidsCommand implements Callable<Integer> {
         }
         if (t2 != null && status != null) {
             // fitted voxels only (inside the mask, whatever fill value lies outside), in ms
-            double[] s = org.echotrellis.io.Nifti.read(status).values();
-            double[] v = org.echotrellis.io.Nifti.read(t2).values();
-            float[] ms = new float[v.length];
-            byte[] codes = new byte[v.length];
-            for (int i = 0; i < v.length; i++) {
-                ms[i] = (float) (1000 * v[i]);
-                codes[i] = (byte) s[i];
-            }
-            org.echotrellis.io.RegionStatistics st = org.echotrellis.io.RegionStatistics.perRegion(ms, codes, null, "").get(0);
+            org.echotrellis.io.RegionStatistics st = org.echotrellis.io.RegionStatistics.perRegion(
+                    org.echotrellis.io.Nifti.read(t2).times(1000).floats(), org.echotrellis.io.Nifti.read(status).bytes(),
+                    null, "").get(0);
             voxels = st.voxels();
             median = st.voxels() == 0 ? "-" : String.format(Locale.ROOT, "%.1f [%.1f–%.1f]", st.p50(), st.p25(), st.p75());
         }

@@ -221,4 +221,44 @@ final class CliChecks {
         m.put("provenance", provenance(spec, protocol));
         return m;
     }
+
+    /**
+     * The spectrum choices of a command line (null where left to each protocol's defaults), shared by
+     * {@code spectrum} and the dataset commands; errors name the options.
+     *
+     * @param t1Ms {@code --t1-ms}
+     * @param windows the {@code --fraction-window-ms} values
+     * @param t2MinMs shortest grid T2 in ms (checked by the caller under its option name)
+     * @param t2MaxMs longest grid T2 in ms (likewise)
+     * @param t2Bins {@code --t2-bins}
+     * @param regularisation {@code --regularisation}
+     * @param misfitIncrease {@code --misfit-increase}
+     * @param refocusSearch {@code --refocus-search-deg}
+     * @param refocusDeg {@code --refocus-deg}
+     * @return the choices
+     */
+    static org.echotrellis.fit.spectrum.SpectrumChoices spectrumChoices(Double t1Ms, List<String> windows,
+            Double t2MinMs, Double t2MaxMs, Integer t2Bins, String regularisation, Double misfitIncrease,
+            String refocusSearch, Double refocusDeg) {
+        org.echotrellis.Checks.require(refocusDeg == null || refocusSearch == null,
+                "--refocus-deg and --refocus-search-deg exclude each other; give one");
+        org.echotrellis.fit.spectrum.RefocusSearch search = asOptions(() -> refocusDeg != null
+                ? org.echotrellis.fit.spectrum.RefocusSearch.fixed(refocusDeg)
+                : refocusSearch != null ? org.echotrellis.fit.spectrum.RefocusSearch.parse(refocusSearch) : null);
+        org.echotrellis.fit.spectrum.Regularisation r =
+                asOptions(() -> org.echotrellis.fit.spectrum.Regularisation.parse(regularisation));
+        if (misfitIncrease != null && r == org.echotrellis.fit.spectrum.Regularisation.NONE) {
+            throw new InputException("--misfit-increase sets the misfit target of regularisation; it has no effect with "
+                    + "--regularisation none");
+        }
+        List<org.echotrellis.fit.spectrum.FractionWindow> ws = new java.util.ArrayList<>();
+        for (String w : windows) {
+            ws.add(asOptions(() -> org.echotrellis.fit.spectrum.FractionWindow.parse(w)));
+        }
+        return new org.echotrellis.fit.spectrum.SpectrumChoices(t1Ms != null ? positiveOrInf("--t1-ms", t1Ms) : Double.NaN,
+                ws, t2MinMs != null ? t2MinMs : Double.NaN, t2MaxMs != null ? t2MaxMs : Double.NaN,
+                t2Bins != null ? org.echotrellis.Checks.inRange("--t2-bins", t2Bins, 2,
+                        org.echotrellis.fit.spectrum.T2Grid.MAX_BINS, null) : 0,
+                r, misfitIncrease != null ? misfitIncrease : Double.NaN, search);
+    }
 }

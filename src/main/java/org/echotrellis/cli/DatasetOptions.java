@@ -1,18 +1,13 @@
 package org.echotrellis.cli;
 
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
 
 import org.echotrellis.Checks;
 import org.echotrellis.InputException;
 import org.echotrellis.fit.FitModel;
-import org.echotrellis.fit.spectrum.FractionWindow;
-import org.echotrellis.fit.spectrum.RefocusSearch;
-import org.echotrellis.fit.spectrum.Regularisation;
 import org.echotrellis.fit.spectrum.SpectrumChoices;
-import org.echotrellis.fit.spectrum.T2Grid;
 import org.echotrellis.fit.volume.FitOptions;
 import org.echotrellis.io.bids.BidsImages;
 import org.echotrellis.sequence.ProtocolText;
@@ -136,26 +131,12 @@ final class DatasetOptions {
         if (analysis == Analysis.fit) {
             return Optional.empty();
         }
-        Checks.require(refocusDeg == null || refocusSearch == null,
-                "--refocus-deg and --refocus-search-deg exclude each other; give one");
-        RefocusSearch search = CliChecks.asOptions(() -> refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
-                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : null);
-        Regularisation r = CliChecks.asOptions(() -> Regularisation.parse(regularisation));
-        if (misfitIncrease != null && r == Regularisation.NONE) {
-            throw new InputException("--misfit-increase sets the misfit target of regularisation; it has no effect with "
-                    + "--regularisation none");
-        }
-        List<FractionWindow> ws = new ArrayList<>();
-        if (window != null) {
-            ws.add(CliChecks.asOptions(() -> FractionWindow.parse(window)));
-        }
-        double t1 = t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : Double.NaN;
-        return Optional.of(new SpectrumChoices(t1, ws,
-                spectrumT2MinMs != null ? Checks.positive("--spectrum-t2-min-ms", spectrumT2MinMs, null) : Double.NaN,
-                spectrumT2MaxMs != null ? Checks.positive("--spectrum-t2-max-ms", spectrumT2MaxMs, null) : Double.NaN,
-                t2Bins != null ? Checks.inRange("--t2-bins", t2Bins, 2, T2Grid.MAX_BINS, null) : 0,
-                r, misfitIncrease != null ? Checks.inRange("--misfit-increase", misfitIncrease, 1.0, 10.0, null) : Double.NaN,
-                search));
+        return Optional.of(CliChecks.spectrumChoices(t1Ms, window == null ? List.of() : List.of(window),
+                spectrumT2MinMs != null ? Checks.positive("--spectrum-t2-min-ms", spectrumT2MinMs, null) : null,
+                spectrumT2MaxMs != null ? Checks.positive("--spectrum-t2-max-ms", spectrumT2MaxMs, null) : null,
+                t2Bins, regularisation,
+                misfitIncrease != null ? Checks.inRange("--misfit-increase", misfitIncrease, 1.0, 10.0, null) : null,
+                refocusSearch, refocusDeg));
     }
 
     /** @return the protocol file's text (parsed once to check it), if given */

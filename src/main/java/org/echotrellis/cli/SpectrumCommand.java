@@ -11,12 +11,8 @@ import org.echotrellis.Checks;
 import org.echotrellis.InputException;
 import org.echotrellis.epg.CpmgTrain;
 import org.echotrellis.fit.spectrum.BasisCache;
-import org.echotrellis.fit.spectrum.FractionWindow;
-import org.echotrellis.fit.spectrum.RefocusSearch;
-import org.echotrellis.fit.spectrum.Regularisation;
 import org.echotrellis.fit.spectrum.SpectrumChoices;
 import org.echotrellis.fit.spectrum.SpectrumOptions;
-import org.echotrellis.fit.spectrum.T2Grid;
 import org.echotrellis.fit.volume.VolumeAnalysis;
 import org.echotrellis.sequence.Protocol;
 import org.echotrellis.sequence.ProtocolReader;
@@ -153,7 +149,7 @@ final class SpectrumCommand implements Callable<Integer> {
                 "DATA " + data + ": expected a decay table (.csv) or an image (.nii, .nii.gz)");
         Checks.require(image || b1Map == null, "--b1-map applies to image input only; DATA " + data + " is a table");
         Checks.require(b1Map == null || refocusDeg == null, "--b1-map and --refocus-deg exclude each other; give one");
-        refuseIgnored(image, options);
+        refuseIgnored(image);
         VolumeAnalysis analysis = CliChecks.asOptions(() -> VolumeAnalysis.spectrum(p, options));
         BasisCache cache = analysis.basisCache().orElseThrow();
         Map<String, Object> settings = settings(p, analysis);
@@ -181,15 +177,10 @@ final class SpectrumCommand implements Callable<Integer> {
     }
 
     /** Options the chosen input or method would ignore are refused rather than silently dropped. */
-    private void refuseIgnored(boolean image, SpectrumOptions options) {
-        picocli.CommandLine.ParseResult parsed = spec.commandLine().getParseResult();
+    private void refuseIgnored(boolean image) {
         if (!image && threads != null) {
             throw new InputException("--threads " + threads + " applies to image input; the decay table " + data
                     + " is fitted on one thread");
-        }
-        if (parsed.hasMatchedOption("--misfit-increase") && options.regularisation() == Regularisation.NONE) {
-            throw new InputException("--misfit-increase sets the misfit target of regularisation; it has no effect with "
-                    + "--regularisation none");
         }
     }
 
@@ -198,23 +189,9 @@ final class SpectrumCommand implements Callable<Integer> {
      * @return the fit options from the command line over the protocol's defaults (validated; errors name the option)
      */
     SpectrumOptions options(Protocol p) {
-        Checks.require(refocusDeg == null || refocusSearch == null,
-                "--refocus-deg and --refocus-search-deg exclude each other; give one");
-        return CliChecks.asOptions(() -> choices().resolve(p));
-    }
-
-    /** @return the grid, basis and search choices of the command line (NaN/null/0 where left to the protocol) */
-    SpectrumChoices choices() {
-        RefocusSearch search = refocusDeg != null ? RefocusSearch.fixed(refocusDeg)
-                : refocusSearch != null ? RefocusSearch.parse(refocusSearch) : null;
-        List<FractionWindow> ws = new ArrayList<>();
-        for (String w : windows) {
-            ws.add(FractionWindow.parse(w));
-        }
-        return new SpectrumChoices(t1Ms != null ? CliChecks.positiveOrInf("--t1-ms", t1Ms) : Double.NaN, ws,
-                t2MinMs != null ? t2MinMs : Double.NaN, t2MaxMs != null ? t2MaxMs : Double.NaN,
-                t2Bins != null ? Checks.inRange("--t2-bins", t2Bins, 2, T2Grid.MAX_BINS, null) : 0,
-                Regularisation.parse(regularisation), misfitIncrease != null ? misfitIncrease : Double.NaN, search);
+        SpectrumChoices c = CliChecks.spectrumChoices(t1Ms, windows, t2MinMs, t2MaxMs, t2Bins, regularisation,
+                misfitIncrease, refocusSearch, refocusDeg);
+        return CliChecks.asOptions(() -> c.resolve(p));
     }
 
     private Map<String, Object> settings(Protocol p, VolumeAnalysis analysis) {

@@ -110,7 +110,7 @@ final class UnitAnalyses {
                 if (!files.contains(sf)) {
                     continue;
                 }
-                byte[] codes = codes(Nifti.read(sf));
+                byte[] codes = Nifti.read(sf).bytes();
                 for (byte b : codes) {
                     voxels += b != VoxelStatus.OUTSIDE_MASK.code() ? 1 : 0;
                 }
@@ -143,24 +143,12 @@ final class UnitAnalyses {
         }
     }
 
-    private static byte[] codes(NiftiImage img) {
-        byte[] b = new byte[img.size()];
-        for (int i = 0; i < b.length; i++) {
-            b[i] = (byte) img.get(i);
-        }
-        return b;
-    }
-
     private static float[] floats(Path file) {
         NiftiImage img = Nifti.read(file);
         if (img.header().volumes() != 1) {
             throw new InputException(file + ": " + img.header().volumes() + " volumes; a 3-D image is expected");
         }
-        float[] f = new float[img.size()];
-        for (int i = 0; i < f.length; i++) {
-            f[i] = (float) img.get(i);
-        }
-        return f;
+        return img.floats();
     }
 
     /**

@@ -179,14 +179,13 @@ public final class SteadyCpmgEngine {
                 int i0 = 2 * base;
                 double g0In = e2 * dPre[-1 + off];
                 double g0Out = e2 * dPost[off];
-                double ua = fs[i0] * g0In;
-                double ra = e1 * zs[0];
-                fs[i0] = (cs * ua - sn * ra) * g0Out;
-                zs[0] = e1 * (sn * ua + cs * ra);
-                double ub = fs[i0 + 1] * g0In;
-                double rb = e1 * zs[1] + recB;
-                fs[i0 + 1] = (cs * ub - sn * rb) * g0Out;
-                zs[1] = e1 * (sn * ub + cs * rb) + recB;
+                for (int j = 0; j < 2; j++) {
+                    double rec = j == 0 ? 0 : recB;
+                    double u = fs[i0 + j] * g0In;
+                    double r = e1 * zs[j] + rec;
+                    fs[i0 + j] = (cs * u - sn * r) * g0Out;
+                    zs[j] = e1 * (sn * u + cs * r) + rec;
+                }
                 for (int k = 2; k <= bound; k += 2) {
                     int ip = 2 * (base + k);
                     int im = 2 * (base - k);
@@ -196,18 +195,14 @@ public final class SteadyCpmgEngine {
                     double gpOut = e2 * dPost[k + off];
                     double gmOut = e2 * dPost[-k + off];
                     double ez = e1 * dZ[k];
-                    double u = fs[ip] * gpIn;
-                    double v = fs[im] * gmIn;
-                    double r = zs[iz] * ez;
-                    fs[ip] = (c2 * u - s2 * v - sn * r) * gpOut;
-                    fs[im] = (-s2 * u + c2 * v - sn * r) * gmOut;
-                    zs[iz] = (0.5 * sn * (u + v) + cs * r) * ez;
-                    u = fs[ip + 1] * gpIn;
-                    v = fs[im + 1] * gmIn;
-                    r = zs[iz + 1] * ez;
-                    fs[ip + 1] = (c2 * u - s2 * v - sn * r) * gpOut;
-                    fs[im + 1] = (-s2 * u + c2 * v - sn * r) * gmOut;
-                    zs[iz + 1] = (0.5 * sn * (u + v) + cs * r) * ez;
+                    for (int j = 0; j < 2; j++) {
+                        double u = fs[ip + j] * gpIn;
+                        double v = fs[im + j] * gmIn;
+                        double r = zs[iz + j] * ez;
+                        fs[ip + j] = (c2 * u - s2 * v - sn * r) * gpOut;
+                        fs[im + j] = (-s2 * u + c2 * v - sn * r) * gmOut;
+                        zs[iz + j] = (0.5 * sn * (u + v) + cs * r) * ez;
+                    }
                 }
                 base--;
             }

@@ -71,4 +71,22 @@ public final class NiftiImage {
         }
         return new NiftiImage(header, v, source, false);
     }
+
+    /** @return the values as floats, e.g. a map for {@link RegionStatistics} */
+    public float[] floats() {
+        float[] f = new float[values.length];
+        for (int i = 0; i < f.length; i++) {
+            f[i] = (float) values[i];
+        }
+        return f;
+    }
+
+    /** @return the values as bytes, e.g. the codes of a status map ({@link VoxelStatus}) */
+    public byte[] bytes() {
+        byte[] b = new byte[values.length];
+        for (int i = 0; i < b.length; i++) {
+            b[i] = (byte) values[i];
+        }
+        return b;
+    }
 }
